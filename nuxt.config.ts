@@ -1,0 +1,22 @@
+// Gammaboard: Nuxt 4 in the root-level layout (no app/ folder — creating one switches the source dir).
+export default defineNuxtConfig({
+  compatibilityDate: '2026-01-01',
+  devtools: { enabled: false },
+  telemetry: false,
+  modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils'],
+  css: ['@fontsource/work-sans/400.css', '@fontsource/work-sans/600.css', '~/assets/css/main.css'],
+  tailwindcss: { cssPath: false, configPath: 'tailwind.config.ts', viewer: false },
+  app: {
+    head: {
+      title: 'Gammaboard',
+      meta: [{ name: 'description', content: 'Impedance matching on the reflection-coefficient plane, together.' }],
+    },
+  },
+  nitro: {
+    experimental: { websocket: true },
+  },
+  vite: {
+    optimizeDeps: { include: ['complex.js', 'vue-konva', 'konva', 'yjs', 'y-websocket', 'uplot', 'sortablejs'] },
+  },
+  typescript: { strict: true },
+})

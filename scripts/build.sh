@@ -1,0 +1,5 @@
+#!/usr/bin/env bash
+# One build at a time in this tree (.nuxt and .output are shared); a second caller waits.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+exec flock /tmp/gammaboard-build.lock npx nuxt build

@@ -1,0 +1,78 @@
+// Starts the built server (.output) on a free loopback port with its own SQLite file.
+// Used by the global setup and by tests that need a server of their own (restart, kill).
+import { spawn, type ChildProcess } from 'node:child_process'
+import { mkdtempSync } from 'node:fs'
+import { createServer } from 'node:net'
+import { tmpdir } from 'node:os'
+import { join, resolve } from 'node:path'
+
+export const SESSION_PASSWORD = 'test-session-password-at-least-32-characters-long'
+
+export interface RunningServer {
+  url: string
+  port: number
+  dbFile: string
+  process: ChildProcess
+  stop: (signal?: NodeJS.Signals) => Promise<void>
+}
+
+export async function freePort(): Promise<number> {
+  return new Promise((ok, fail) => {
+    const srv = createServer()
+    srv.unref()
+    srv.on('error', fail)
+    srv.listen(0, '127.0.0.1', () => {
+      const { port } = srv.address() as { port: number }
+      srv.close(() => ok(port))
+    })
+  })
+}
+
+export interface StartOptions {
+  dbFile?: string
+  port?: number
+  env?: Record<string, string>
+}
+
+export async function startServer(options: StartOptions = {}): Promise<RunningServer> {
+  const port = options.port ?? await freePort()
+  const dbFile = options.dbFile ?? join(mkdtempSync(join(tmpdir(), 'gammaboard-test-')), 'test.sqlite')
+  const entry = resolve(process.env.GAMMABOARD_OUTPUT ?? '.output', 'server/index.mjs')
+  const child = spawn(process.execPath, [entry], {
+    env: {
+      ...process.env,
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      NITRO_HOST: '127.0.0.1',
+      NUXT_SESSION_PASSWORD: SESSION_PASSWORD,
+      GAMMABOARD_DB: dbFile,
+      GAMMABOARD_ENV: 'test',
+      ...options.env,
+    },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  })
+  let log = ''
+  child.stdout!.on('data', (d) => { log += d })
+  child.stderr!.on('data', (d) => { log += d })
+  const url = `http://127.0.0.1:${port}`
+  const deadline = Date.now() + 30_000
+  for (;;) {
+    if (child.exitCode !== null) throw new Error(`server exited early (${child.exitCode}):\n${log}`)
+    try {
+      const res = await fetch(`${url}/api/health`)
+      if (res.ok) break
+    }
+    catch { /* not listening yet */ }
+    if (Date.now() > deadline) {
+      child.kill('SIGKILL')
+      throw new Error(`server did not answer /api/health within 30 s:\n${log}`)
+    }
+    await new Promise(r => setTimeout(r, 150))
+  }
+  const stop = (signal: NodeJS.Signals = 'SIGTERM') => new Promise<void>((ok) => {
+    if (child.exitCode !== null || child.signalCode !== null) return ok()
+    child.once('exit', () => ok())
+    child.kill(signal)
+  })
+  return { url, port, dbFile, process: child, stop }
+}
