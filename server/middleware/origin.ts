@@ -6,6 +6,6 @@ const SAFE = new Set(['GET', 'HEAD', 'OPTIONS'])
 export default defineEventHandler((event) => {
   if (SAFE.has(event.method)) return
   if (!isSameOrigin(event)) {
-    throw createError({ statusCode: 403, message: 'Cross-origin request refused: the Origin header does not match this site.' })
+    throw createError({ statusCode: 403, statusMessage: 'Forbidden', message: 'Cross-origin request refused: the Origin header does not match this site.' })
   }
 })
