@@ -1,0 +1,6 @@
+// The board document: schema, Y.Doc reading/writing, edits, palette and demo boards.
+export * from './schema'
+export * from './ydoc'
+export * from './ops'
+export * from './palette'
+export * from './demo-boards'
