@@ -1,0 +1,34 @@
+import { describe, expect, inject, it } from 'vitest'
+import { DEMO_BOARDS } from '../../shared/board/demo-boards'
+
+const baseUrl = inject('baseUrl')
+
+describe('GET /api/boards/:id', () => {
+  it.each(DEMO_BOARDS.map(b => b.id))('serves demo board %s with its settings and elements', async (id) => {
+    const res = await fetch(`${baseUrl}/api/boards/${id}`)
+    expect(res.status).toBe(200)
+    const body = await res.json()
+    const demo = DEMO_BOARDS.find(b => b.id === id)!
+    expect(body.id).toBe(id)
+    expect(body.workspace).toBe('kestrel')
+    expect(body.name).toBe(demo.name)
+    expect(body.settings).toEqual(demo.settings)
+    expect(body.elements).toEqual(demo.elements)
+    expect(Number.isNaN(Date.parse(body.updatedAt))).toBe(false)
+  })
+
+  it('answers 404 JSON with a message for an unknown id', async () => {
+    const res = await fetch(`${baseUrl}/api/boards/no-such-board`)
+    expect(res.status).toBe(404)
+    const body = await res.json()
+    expect(body.statusCode).toBe(404)
+    expect(body.message).toMatch(/no-such-board/)
+  })
+
+  it('answers 400 naming the id for a malformed id', async () => {
+    const res = await fetch(`${baseUrl}/api/boards/${encodeURIComponent('bad id!')}`)
+    expect(res.status).toBe(400)
+    const body = await res.json()
+    expect(body.message).toMatch(/id/)
+  })
+})
