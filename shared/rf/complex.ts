@@ -116,3 +116,12 @@ export function relativeDifference(a: Complex, b: Complex, floor = 1e-300): numb
   if (isInfinite(a) || isInfinite(b)) return isInfinite(a) && isInfinite(b) ? 0 : Infinity
   return Math.hypot(a.re - b.re, a.im - b.im) / Math.max(Math.hypot(b.re, b.im), floor)
 }
+
+/**
+ * 1/z with the special points exact: 1/OPEN = 0 (an open has zero admittance) and 1/0 = OPEN (a
+ * short has infinite admittance). Used to turn impedances into admittances (S) and back.
+ */
+export function reciprocal(z: Complex): Complex {
+  if (isInfinite(z)) return SHORT
+  return divideParts(1, 0, z.re, z.im)
+}

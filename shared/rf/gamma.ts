@@ -79,7 +79,7 @@ export function returnLossDb(gamma: Complex | number): number {
 /** Mismatch loss (dB) = −10·log10(1 − |Γ|²): 0 at a match, Infinity at |Γ| = 1. Throws for |Γ| > 1. */
 export function mismatchLossDb(gamma: Complex | number): number {
   const m = passiveMagnitude(gamma, 'mismatch loss')
-  return m === 1 ? Infinity : -10 * Math.log10(1 - m * m)
+  return m === 1 ? Infinity : 0 - 10 * Math.log10(1 - m * m)
 }
 
 /** The delivered share of the available power, 1 − |Γ|² (power-wave Γ; 0 for |Γ| ≥ 1 within rounding). */

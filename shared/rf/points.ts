@@ -58,6 +58,24 @@ export function readAdmittance(p: PointBuffer, i: number): Complex {
   return divideParts(p.bRe[i]!, p.bIm[i]!, p.aRe[i]!, p.aIm[i]!)
 }
 
+// cos and sin of a whole multiple of 90° are exactly 0 or ±1, so that a quarter-wave line turns a
+// short into an exact open and a 0° or 90° stub is an exact open or short. Only checked when
+// Math.cos or Math.sin is already tiny, to keep the loop fast.
+const NEAR_ZERO = 1e-12
+const trig = new Float64Array(2)
+
+function exactCosSin(tDeg: number, c: number, s: number): void {
+  const quarter = tDeg / 90
+  if (Number.isInteger(quarter)) {
+    const k = ((quarter % 4) + 4) % 4
+    trig[0] = k === 0 ? 1 : k === 2 ? -1 : 0
+    trig[1] = k === 1 ? 1 : k === 3 ? -1 : 0
+  } else {
+    trig[0] = c
+    trig[1] = s
+  }
+}
+
 function setOpen(p: PointBuffer, i: number): void {
   p.aRe[i] = 1; p.aIm[i] = 0; p.bRe[i] = 0; p.bIm[i] = 0
 }
@@ -94,8 +112,12 @@ export function applyElementToPoints(p: PointBuffer, element: Element, frequenci
       for (let i = 0; i < n; i++) {
         const f = frequenciesHz[i]!
         const t = element.fRef === undefined ? radRef : (radRef * f) / element.fRef
-        const c = Math.cos(t)
-        const s = Math.sin(t)
+        let c = Math.cos(t)
+        let s = Math.sin(t)
+        if (Math.abs(c) < NEAR_ZERO || Math.abs(s) < NEAR_ZERO) {
+          exactCosSin(element.fRef === undefined ? element.deg : (element.deg * f) / element.fRef, c, s)
+          c = trig[0]!; s = trig[1]!
+        }
         const zs = zc * s
         const ys = s / zc
         const ar = aRe[i]!, ai = aIm[i]!, br = bRe[i]!, bi = bIm[i]!
@@ -181,8 +203,12 @@ function applyStub(
   const isSeries = placement === 'series'
   for (let i = 0; i < n; i++) {
     const t = fRef === undefined ? radRef : (radRef * frequenciesHz[i]!) / fRef
-    const c = Math.cos(t)
-    const s = Math.sin(t)
+    let c = Math.cos(t)
+    let s = Math.sin(t)
+    if (Math.abs(c) < NEAR_ZERO || Math.abs(s) < NEAR_ZERO) {
+      exactCosSin(fRef === undefined ? deg : (deg * frequenciesHz[i]!) / fRef, c, s)
+      c = trig[0]!; s = trig[1]!
+    }
     // The part's impedance as num/den with num = j·zc·nu (nu real) and den real.
     const den = end === 'open' ? s : c
     const nu = end === 'open' ? -c : s

@@ -1,0 +1,79 @@
+import { describe, expect, it } from 'vitest'
+import seedrandom from 'seedrandom'
+import { RfInputError, gammaOf, inputImpedance, returnLossDb, sweep, sweepFlat, vswr, type Element } from '../../../shared/rf/index'
+import { REFERENCE_SOURCE, casesWhere, expectComplexClose, expectRealClose, refComplex, refStart } from './reference'
+import { randomLadder, randomPassiveLoad } from './random-ladders'
+
+const sweepCases = casesWhere((c) => c.op === 'sweep')
+
+describe(`sweep against ${REFERENCE_SOURCE}`, () => {
+  it('has the three band sweeps', () => expect(sweepCases).toHaveLength(3))
+
+  it.each(sweepCases.map((c) => [c.id, c] as const))('%s', (_id, c) => {
+    const freqs = c.input.freqs as number[]
+    const loads = c.input.loads
+      ? (c.input.loads as [number, number][]).map(refComplex)
+      : freqs.map((f) => refStart(c.input, f))
+    const out = sweep({ z0: c.input.z0, frequencies: freqs, load: loads, elements: c.input.elements as Element[] })
+    expect(out).toHaveLength(freqs.length)
+    c.expected.points.forEach((pt: any, k: number) => {
+      const label = `${c.id} at ${pt.f} Hz`
+      expectComplexClose(loads[k]!, refComplex(pt.zload), `${label} load`)
+      expectComplexClose(out[k]!, refComplex(pt.zin), `${label} zin`)
+      const g = gammaOf(out[k]!, c.input.z0)
+      expectComplexClose(g, refComplex(pt.gamma), `${label} gamma`, 1e-12)
+      if (pt.gammaMag > 1e-9) {
+        expectRealClose(vswr(g), pt.vswr, `${label} vswr`)
+        expectRealClose(returnLossDb(g), pt.returnLossDb, `${label} return loss`)
+      }
+    })
+  })
+})
+
+describe('sweep properties (seeded)', () => {
+  it('agrees with trace at each frequency, with one load and with one load per frequency', () => {
+    const rng = seedrandom('sweep-vs-trace')
+    for (let k = 0; k < 60; k++) {
+      const f0 = 1e7 * 10 ** (rng() * 2.5)
+      const elements = randomLadder(rng, f0, { length: 1 + Math.floor(rng() * 10) })
+      const frequencies = Array.from({ length: 21 }, (_, i) => f0 * (0.7 + (0.6 * i) / 20))
+      const single = randomPassiveLoad(rng)
+      const perFrequency = frequencies.map(() => randomPassiveLoad(rng))
+      const a = sweep({ z0: 50, frequencies, load: single, elements })
+      const b = sweep({ z0: 50, frequencies, load: perFrequency, elements })
+      frequencies.forEach((f, i) => {
+        expectComplexClose(a[i]!, inputImpedance({ z0: 50, frequency: f, load: single, elements }), `single load at ${f}`)
+        expectComplexClose(b[i]!, inputImpedance({ z0: 50, frequency: f, load: perFrequency[i]!, elements }), `per-frequency load at ${f}`)
+      })
+    }
+  })
+
+  it('sweepFlat carries the same numbers as sweep and marks an open as Infinity', () => {
+    const frequencies = new Float64Array([1e8, 2e8, 3e8])
+    const elements: Element[] = [{ kind: 'C', placement: 'series', value: 1e-12 }]
+    const flat = sweepFlat({ z0: 50, frequencies, load: { re: Infinity, im: 0 }, elements })
+    expect(Array.from(flat.re)).toEqual([Infinity, Infinity, Infinity])
+    const objects = sweep({ z0: 50, frequencies, load: { re: 10, im: 0 }, elements })
+    const flat2 = sweepFlat({ z0: 50, frequencies, load: { re: 10, im: 0 }, elements })
+    objects.forEach((z, i) => expect([z.re, z.im]).toEqual([flat2.re[i], flat2.im[i]]))
+  })
+
+  it('rejects bad arguments by name', () => {
+    const base = { z0: 50, frequencies: [1e9, 2e9], load: { re: 50, im: 0 }, elements: [] as Element[] }
+    const argOf = (patch: Record<string, unknown>) => {
+      try {
+        sweep({ ...base, ...patch } as never)
+      } catch (e) {
+        return (e as RfInputError).argument
+      }
+      return 'no error'
+    }
+    expect(argOf({ elements: [{ kind: 'line', z0: 50, deg: 30 }] })).toBe('elements[0].fRef')
+    expect(argOf({ elements: [{ kind: 'L', placement: 'series', value: 1e-9 }, { kind: 'stub', end: 'open', placement: 'shunt', z0: 50, deg: 30 }] })).toBe('elements[1].fRef')
+    expect(argOf({ frequencies: [1e9, -1] })).toBe('frequencies[1]')
+    expect(argOf({ frequencies: [] })).toBe('frequencies')
+    expect(argOf({ load: [{ re: 1, im: 0 }] })).toBe('load')
+    expect(argOf({ load: [{ re: 1, im: 0 }, { re: NaN, im: 0 }] })).toBe('load[1]')
+    expect(argOf({ z0: NaN })).toBe('z0')
+  })
+})
