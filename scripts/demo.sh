@@ -10,4 +10,9 @@ export GAMMABOARD_SEED=demo
 export PORT="${PORT:-3000}"
 export HOST="${HOST:-127.0.0.1}"
 echo "Gammaboard demo: http://localhost:${PORT}"
+echo "Demo sign-ins (workspace kestrel, Kestrel Field Sensors; seeded on a database without users):"
+echo "  admin     Mara Quell      mara@kestrel.example   kestrel-admin-demo"
+echo "  designer  Tomas Reyes     tomas@kestrel.example  kestrel-designer-demo"
+echo "  reviewer  Ines Halvorsen  ines@kestrel.example   kestrel-reviewer-demo"
+echo "Mail goes to the local catcher; admins read it at /w/kestrel/outbox."
 exec node .output/server/index.mjs

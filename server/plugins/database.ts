@@ -1,5 +1,5 @@
-// Open the database and apply pending migrations as the server starts; a failure stops the server
-// rather than serving requests against a half-migrated schema.
+// Open the database, apply pending migrations and seed the demo team (GAMMABOARD_SEED=demo) as the
+// server starts; a failure stops the server rather than serving a half-migrated schema.
 export default defineNitroPlugin(async (nitroApp) => {
   try {
     await useDb()

@@ -1,10 +1,8 @@
-// Where board documents come from. For now the demo boards, each passed through the same Yjs
-// round trip a stored board takes (createBoardDoc → encode → boardFromState), so the answer has
-// exactly the shape a stored document reads back as. The database-backed version replaces only
-// the body of loadBoard.
-import { DEMO_BOARDS } from '#shared/board/demo-boards'
-import { boardFromState, createBoardDoc, encodeBoardState } from '#shared/board/ydoc'
+// Where board documents come from: the boards table, whose Yjs state is the source of truth.
+// The JSON is always read from that state (boardFromState), so it has exactly the shape a live
+// document reads back as.
 import type { BoardElement, BoardSettings } from '#shared/board/schema'
+import { boardJson, currentBoardState, loadBoardState, saveBoardState } from '../database/board-store'
 
 export interface BoardRecord {
   id: string
@@ -15,15 +13,22 @@ export interface BoardRecord {
   updatedAt: string
 }
 
-// The demo fixtures are as old as this server process.
-const FIXTURES_LOADED_AT = new Date().toISOString()
-
-/** The board as plain JSON, or null when there is no board with that id. */
+/** The board as plain JSON (from the live room's document when one is open), or null. */
 export async function loadBoard(id: string): Promise<BoardRecord | null> {
-  const demo = DEMO_BOARDS.find(b => b.id === id)
-  if (!demo) return null
-  const doc = createBoardDoc(demo)
-  const { settings, elements } = boardFromState(encodeBoardState(doc))
-  doc.destroy()
-  return { id: demo.id, name: demo.name, workspace: demo.workspace, settings, elements, updatedAt: FIXTURES_LOADED_AT }
+  const { Board, Workspace } = await useModels()
+  const board = await Board.findByPk(id)
+  const workspace = board && await Workspace.findByPk(board.workspaceId, { attributes: ['id', 'slug'] })
+  if (!board || !workspace) return null
+  const state = await currentBoardState(await useDb(), id)
+  return boardJson(board, workspace.slug, state ?? undefined)
+}
+
+/** Storage for the live rooms: the stored state, and saving a new one (with its listing summary). */
+export const boardStateStore = {
+  async loadState(boardId: string): Promise<Uint8Array | null> {
+    return loadBoardState(await useDb(), boardId)
+  },
+  async saveState(boardId: string, update: Uint8Array): Promise<void> {
+    await saveBoardState(await useDb(), boardId, update)
+  },
 }

@@ -1,8 +1,11 @@
-// The server's one database handle. Opened and migrated once at start (server/plugins/database.ts);
-// handlers `await useDb()` so no query runs before the migrations have finished.
+// The server's one database handle. Opened, migrated and (with GAMMABOARD_SEED=demo, on a database
+// without users) seeded once at start (server/plugins/database.ts); handlers `await useDb()` so no
+// query runs before that has finished.
 import type { Sequelize } from 'sequelize'
 import { databaseFile, openSequelize } from '../database/connection'
 import { migrateToLatest } from '../database/migrate'
+import { seedDemo } from '../database/seed'
+import { modelsFor, type Models } from '../models'
 
 let ready: Promise<Sequelize> | undefined
 
@@ -10,7 +13,15 @@ export function useDb(): Promise<Sequelize> {
   ready ??= (async () => {
     const sequelize = await openSequelize(databaseFile())
     await migrateToLatest(sequelize)
+    if (process.env.GAMMABOARD_SEED === 'demo' && await seedDemo(sequelize)) {
+      console.info('[gammaboard] seeded the demo workspace "kestrel"')
+    }
     return sequelize
   })()
   return ready
+}
+
+/** The models bound to the server's database handle. */
+export async function useModels(): Promise<Models> {
+  return modelsFor(await useDb())
 }

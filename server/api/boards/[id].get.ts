@@ -1,4 +1,5 @@
-// GET /api/boards/:id — one board as JSON: { id, name, workspace, settings, elements, updatedAt }.
+// GET /api/boards/:id — one board as JSON: { id, name, workspace, settings, elements, updatedAt },
+// for any member of its workspace (404 for everyone else).
 import { z } from 'zod'
 
 const ParamsSchema = z.object({
@@ -7,6 +8,7 @@ const ParamsSchema = z.object({
 
 export default defineEventHandler(async (event) => {
   const { id } = await paramsAs(event, ParamsSchema)
+  await requireMember(event, { boardId: id }, 'reviewer')
   const board = await loadBoard(id)
   if (!board) throw createError({ statusCode: 404, message: `No board with id ${id}` })
   return board

@@ -1,0 +1,100 @@
+// Boards in SQLite: the live Yjs state is the source of truth; the JSON a client sees is always
+// read from it (boardFromState), never rebuilt the other way once a state exists.
+import { randomUUID } from 'node:crypto'
+import * as Y from 'yjs'
+import type { Sequelize, Transaction } from 'sequelize'
+import { modelsFor, type BoardInstance, type BoardSummary } from '../models'
+import { DEFAULT_SETTINGS, type BoardContent, type BoardSnapshot } from '../../shared/board/schema'
+import { applyBoardState, boardFromState, createBoardDoc, encodeBoardState } from '../../shared/board/ydoc'
+import { replaceBoard } from '../../shared/board/ops'
+import { liveBridge } from './live-bridge'
+
+export const BLANK_BOARD: BoardContent = { settings: DEFAULT_SETTINGS, elements: [] }
+
+export function summarize(snapshot: BoardContent): BoardSummary {
+  const { z0, frequencyHz, bandStartHz, bandStopHz, bandPoints } = snapshot.settings
+  return { z0, frequencyHz, bandStartHz, bandStopHz, bandPoints, elementCount: snapshot.elements.length }
+}
+
+/** The content a snapshot or template keeps as readable JSON beside its Yjs state. */
+export function contentJson(snapshot: BoardSnapshot): string {
+  return JSON.stringify({ settings: snapshot.settings, elements: snapshot.elements })
+}
+
+export function stateBytes(row: { state: Buffer }): Uint8Array {
+  return new Uint8Array(row.state.buffer, row.state.byteOffset, row.state.byteLength)
+}
+
+/** The board's JSON as the REST API answers it. */
+export function boardJson(board: BoardInstance, workspaceSlug: string, state: Uint8Array = stateBytes(board)) {
+  const { settings, elements } = boardFromState(state)
+  return { id: board.id, name: board.name, workspace: workspaceSlug, settings, elements, updatedAt: board.updatedAt.toISOString() }
+}
+export type BoardJson = ReturnType<typeof boardJson>
+
+export async function createBoardRow(
+  sequelize: Sequelize,
+  input: { id?: string, workspaceId: number, name: string, createdBy: number | null, state?: Uint8Array, content?: BoardContent },
+  transaction?: Transaction,
+): Promise<BoardInstance> {
+  const { Board } = modelsFor(sequelize)
+  let state = input.state
+  if (!state) {
+    const doc = createBoardDoc(input.content ?? BLANK_BOARD)
+    state = encodeBoardState(doc)
+    doc.destroy()
+  }
+  return Board.create({
+    id: input.id ?? randomUUID(),
+    workspaceId: input.workspaceId,
+    name: input.name.trim(),
+    state: Buffer.from(state),
+    summary: JSON.stringify(summarize(boardFromState(state))),
+    createdBy: input.createdBy,
+  }, { transaction })
+}
+
+/** Stores a new full state (and its listing summary); used by restores and by the live rooms. */
+export async function saveBoardState(sequelize: Sequelize, boardId: string, state: Uint8Array): Promise<void> {
+  const { Board } = modelsFor(sequelize)
+  await Board.update(
+    { state: Buffer.from(state), summary: JSON.stringify(summarize(boardFromState(state))), updatedAt: new Date() },
+    { where: { id: boardId } },
+  )
+}
+
+export async function loadBoardState(sequelize: Sequelize, boardId: string): Promise<Uint8Array | null> {
+  const { Board } = modelsFor(sequelize)
+  const board = await Board.findByPk(boardId, { attributes: ['id', 'state'] })
+  return board ? stateBytes(board) : null
+}
+
+/**
+ * Replaces the board's content as one forward change with the given origin (ORIGIN_RESTORE for a
+ * restore). With a live server registered, it edits the room's document (connected editors see it
+ * at once and the room saves it); else it edits the stored state and saves.
+ */
+export async function replaceBoardContent(sequelize: Sequelize, boardId: string, content: BoardContent, origin: unknown): Promise<void> {
+  const bridge = liveBridge()
+  if (bridge) {
+    await bridge.editBoard(boardId, doc => replaceBoard(doc, content, origin))
+    return
+  }
+  const stored = await loadBoardState(sequelize, boardId)
+  if (!stored) return
+  const doc = new Y.Doc()
+  try {
+    applyBoardState(doc, stored)
+    replaceBoard(doc, content, origin)
+    await saveBoardState(sequelize, boardId, encodeBoardState(doc))
+  }
+  finally {
+    doc.destroy()
+  }
+}
+
+/** The present state of a board: the live room's document if one is open, else the stored one. */
+export async function currentBoardState(sequelize: Sequelize, boardId: string): Promise<Uint8Array | null> {
+  const live = liveBridge()?.openDoc(boardId)
+  return live ? encodeBoardState(live) : loadBoardState(sequelize, boardId)
+}
