@@ -1,0 +1,22 @@
+// The process's one live hub, storing boards through the boards table. Lazily created so that
+// nothing touches the database before the first connection or server-side edit.
+import { loadBoardState, saveBoardState } from '../../database/board-store'
+import { useDb } from '../db'
+import { createLiveHub, type LiveHub } from './rooms'
+
+let hub: LiveHub | undefined
+
+export function useLiveHub(): LiveHub {
+  hub ??= createLiveHub({
+    store: {
+      loadState: async boardId => loadBoardState(await useDb(), boardId),
+      saveState: async (boardId, update) => saveBoardState(await useDb(), boardId, update),
+    },
+  })
+  return hub
+}
+
+/** The hub if one was created (shutdown must not create one just to close it). */
+export function existingLiveHub(): LiveHub | undefined {
+  return hub
+}
