@@ -1,0 +1,113 @@
+// Nothing lost: the built server is killed and restarted on the same SQLite file.
+import { afterEach, beforeAll, describe, expect, it } from 'vitest'
+import { mkdtempSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
+import { readBoard } from '../../shared/board/ydoc'
+import { addElement, updateElement } from '../../shared/board/ops'
+import { freePort, startServer, type RunningServer } from '../support/server'
+import { connectLive, waitUntil, whenSynced } from '../support/live-client'
+import { clientPool, createBoard, signInAll } from './helpers'
+
+const pool = clientPool()
+const servers: RunningServer[] = []
+let dbFile: string
+let port: number
+
+async function boot(): Promise<RunningServer> {
+  const server = await startServer({ dbFile, port, env: { GAMMABOARD_SEED: 'demo' } })
+  servers.push(server)
+  return server
+}
+
+beforeAll(async () => {
+  dbFile = join(mkdtempSync(join(tmpdir(), 'gammaboard-live-')), 'durable.sqlite')
+  port = await freePort()
+})
+
+afterEach(async () => {
+  pool.destroyAll()
+  for (const server of servers.splice(0)) await server.stop('SIGKILL')
+})
+
+const valueOf = (client: { doc: Parameters<typeof readBoard>[0] }, id: string) =>
+  (readBoard(client.doc).elements.find(e => e.id === id) as { value?: number } | undefined)?.value
+
+describe('live durability', () => {
+  it('keeps an edit made more than 2 s before a SIGKILL', async () => {
+    let server = await boot()
+    const cookies = await signInAll(server.url)
+    const boardId = await createBoard(server.url, cookies.designer, 'Kill test')
+    const editor = pool.track(connectLive(server.url, boardId, { cookie: cookies.designer }))
+    const witness = pool.track(connectLive(server.url, boardId, { cookie: cookies.admin }))
+    await Promise.all([whenSynced(editor), whenSynced(witness)])
+    const id = addElement(editor.doc, { kind: 'C', placement: 'shunt', value: 4.7e-12 })
+    updateElement(editor.doc, id, { value: 5.6e-12 })
+    // Acknowledged: the server has relayed it to another peer.
+    await waitUntil(() => valueOf(witness, id) === 5.6e-12)
+    await new Promise(r => setTimeout(r, 2100))
+    await server.stop('SIGKILL')
+    pool.destroyAll()
+    servers.splice(0)
+
+    server = await boot()
+    const after = pool.track(connectLive(server.url, boardId, { cookie: (await signInAll(server.url)).designer }))
+    await whenSynced(after)
+    expect(readBoard(after.doc).elements).toEqual([expect.objectContaining({ id, kind: 'C', value: 5.6e-12 })])
+  })
+
+  it('flushes everything on SIGTERM, even an edit made just before it', async () => {
+    let server = await boot()
+    const cookies = await signInAll(server.url)
+    const boardId = await createBoard(server.url, cookies.designer, 'Term test')
+    const editor = pool.track(connectLive(server.url, boardId, { cookie: cookies.designer }))
+    const witness = pool.track(connectLive(server.url, boardId, { cookie: cookies.admin }))
+    await Promise.all([whenSynced(editor), whenSynced(witness)])
+    const ids = [1, 2, 3].map(n => addElement(editor.doc, { kind: 'L', placement: 'series', value: n * 1e-9 }))
+    await waitUntil(() => readBoard(witness.doc).elements.length === 3)
+    await server.stop('SIGTERM')
+    expect(server.process.exitCode).toBe(0)
+    pool.destroyAll()
+    servers.splice(0)
+
+    server = await boot()
+    const after = pool.track(connectLive(server.url, boardId, { cookie: (await signInAll(server.url)).designer }))
+    await whenSynced(after)
+    expect(readBoard(after.doc).elements.map(e => e.id)).toEqual(ids)
+  })
+
+  it('merges an offline client\'s edits on reconnect and duplicates nothing across a restart', async () => {
+    let server = await boot()
+    const cookies = await signInAll(server.url)
+    const boardId = await createBoard(server.url, cookies.designer, 'Offline test')
+    const a = pool.track(connectLive(server.url, boardId, { cookie: cookies.designer }))
+    const b = pool.track(connectLive(server.url, boardId, { cookie: cookies.admin }))
+    await Promise.all([whenSynced(a), whenSynced(b)])
+    const shared = addElement(a.doc, { kind: 'C', placement: 'shunt', value: 1e-12 })
+    await waitUntil(() => readBoard(b.doc).elements.length === 1)
+
+    a.provider.disconnect()
+    const offline = addElement(a.doc, { kind: 'L', placement: 'series', value: 8.2e-9 })
+    updateElement(a.doc, shared, { q: 60 })
+    const online = addElement(b.doc, { kind: 'R', placement: 'shunt', value: 330 })
+    await new Promise(r => setTimeout(r, 200))
+    a.provider.connect()
+    await waitUntil(() => readBoard(a.doc).elements.length === 3 && readBoard(b.doc).elements.length === 3, 10_000, 'offline merge')
+    expect(readBoard(b.doc).elements.find(e => e.id === shared)).toMatchObject({ q: 60 })
+    expect(new Set(readBoard(b.doc).elements.map(e => e.id))).toEqual(new Set([shared, offline, online]))
+
+    // Restart on the same port: the connected clients reconnect by themselves and sync again.
+    await server.stop('SIGTERM')
+    servers.splice(0)
+    server = await boot()
+    await waitUntil(() => a.provider.synced && b.provider.synced, 20_000, 'resync after restart')
+    const fresh = pool.track(connectLive(server.url, boardId, { cookie: (await signInAll(server.url)).admin }))
+    await whenSynced(fresh)
+    for (const client of [a, b, fresh]) {
+      const board = readBoard(client.doc)
+      expect(board.problems.filter(p => p.includes('repeats id'))).toEqual([])
+      expect(client.doc.getArray('elements').length).toBe(3)
+      expect(new Set(board.elements.map(e => e.id))).toEqual(new Set([shared, offline, online]))
+    }
+  })
+})
