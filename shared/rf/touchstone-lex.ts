@@ -58,30 +58,50 @@ function isSpace(code: number): boolean {
   return code <= 32
 }
 
+// Exact powers of ten: a mantissa below 2^53 times or divided by one of these is correctly
+// rounded, the same double Number() gives (Clinger's fast path).
+const POW10 = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`))
+
 /**
- * True when text[start, end) is a plain decimal literal: [+-]digits[.digits][(e|E)[+-]digits],
- * a leading or trailing '.' allowed ('.5', '5.'). Number() alone would also take hex, binary,
- * 'Infinity' and '1_0'-free oddities, which a Touchstone file never means.
+ * The value of text[start, end) when it is a plain decimal literal
+ * [+-]digits[.digits][(e|E)[+-]digits] ('.5' and '5.' allowed), else NaN. Number() alone would
+ * also take hex, binary and 'Infinity', which a Touchstone file never means. Short literals are
+ * converted here in one pass; longer ones fall back to Number().
  */
-export function isDecimalLiteral(text: string, start: number, end: number): boolean {
+export function readDecimal(text: string, start: number, end: number): number {
   let i = start
   let code = text.charCodeAt(i)
+  const isNegative = code === 45
   if (code === 43 || code === 45) code = text.charCodeAt(++i) // + -
+  let mantissa = 0
   let digits = 0
-  while (i < end && code >= 48 && code <= 57) { digits++; code = text.charCodeAt(++i) }
+  let exponent = 0
+  while (i < end && code >= 48 && code <= 57) { mantissa = mantissa * 10 + (code - 48); digits++; code = text.charCodeAt(++i) }
   if (i < end && code === 46) { // .
     code = text.charCodeAt(++i)
-    while (i < end && code >= 48 && code <= 57) { digits++; code = text.charCodeAt(++i) }
+    while (i < end && code >= 48 && code <= 57) { mantissa = mantissa * 10 + (code - 48); digits++; exponent--; code = text.charCodeAt(++i) }
   }
-  if (digits === 0) return false
+  if (digits === 0) return Number.NaN
   if (i < end && (code === 101 || code === 69)) { // e E
     code = text.charCodeAt(++i)
+    const isExponentNegative = code === 45
     if (code === 43 || code === 45) code = text.charCodeAt(++i)
+    let written = 0
     let expDigits = 0
-    while (i < end && code >= 48 && code <= 57) { expDigits++; code = text.charCodeAt(++i) }
-    if (expDigits === 0) return false
+    while (i < end && code >= 48 && code <= 57) {
+      if (written < 1e6) written = written * 10 + (code - 48)
+      expDigits++
+      code = text.charCodeAt(++i)
+    }
+    if (expDigits === 0) return Number.NaN
+    exponent += isExponentNegative ? -written : written
   }
-  return i === end
+  if (i !== end) return Number.NaN
+  if (mantissa <= Number.MAX_SAFE_INTEGER && exponent >= -22 && exponent <= 22) {
+    const value = exponent < 0 ? mantissa / POW10[-exponent]! : mantissa * POW10[exponent]!
+    return isNegative ? -value : value
+  }
+  return Number(text.slice(start, end))
 }
 
 /**
@@ -97,11 +117,11 @@ export function scanNumbers(text: string, end: number, out: Float64Array, offset
     if (i >= end) break
     const start = i
     while (i < end && !isSpace(text.charCodeAt(i))) i++
-    if (!isDecimalLiteral(text, start, i)) {
+    const value = readDecimal(text, start, i)
+    if (Number.isNaN(value)) {
       throw new TouchstoneError('non-numeric', `token '${text.slice(start, i)}' is not a number (expected a decimal number such as 0.25 or -1.5e-3)`,
         where.fileName, where.lineNumber, start + 1)
     }
-    const value = Number(text.slice(start, i))
     if (!Number.isFinite(value)) {
       throw new TouchstoneError('out-of-range', `number '${text.slice(start, i)}' is too large for a double (expected a finite number)`,
         where.fileName, where.lineNumber, start + 1)
@@ -159,7 +179,7 @@ export function parseOptionLine(text: string, hashIndex: number, where: LineCont
     else if (upper === 'R') {
       if (referenceOhms !== undefined) fail(`repeated 'R' (one reference resistance expected)`, token.column)
       const value = tokens[t + 1]
-      const ohms = value && isDecimalLiteral(value.text, 0, value.text.length) ? Number(value.text) : Number.NaN
+      const ohms = value ? readDecimal(value.text, 0, value.text.length) : Number.NaN
       if (!(ohms > 0) || !Number.isFinite(ohms)) fail(`'R' must be followed by a positive reference resistance in ohms`, value?.column ?? token.column)
       referenceOhms = ohms
       t++

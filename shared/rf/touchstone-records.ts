@@ -151,9 +151,23 @@ export class RecordReader {
     const { buffer, layout } = this
     const n = layout.ports
     this.frequencies.push(this.checkFrequency(buffer[0]!, this.recordLine, this.recordColumn))
-    const matrix: Complex[][] = new Array(n)
-    for (let i = 0; i < n; i++) matrix[i] = new Array(n)
     const places = layout.placeOfValue
+    // Fast paths build the small matrices as literals (packed arrays, fewer allocations).
+    if (n === 1) {
+      this.s.push([[this.toComplex(buffer[1]!, buffer[2]!)]])
+      return
+    }
+    if (n === 2 && !layout.isSymmetric) {
+      // placeOfValue is [0, 2, 1, 3] (f S11 S21 S12 S22) or [0, 1, 2, 3] (f S11 S12 S21 S22).
+      const s11 = this.toComplex(buffer[1]!, buffer[2]!)
+      const second = this.toComplex(buffer[3]!, buffer[4]!)
+      const third = this.toComplex(buffer[5]!, buffer[6]!)
+      const s22 = this.toComplex(buffer[7]!, buffer[8]!)
+      this.s.push(places[1] === 2 ? [[s11, third], [second, s22]] : [[s11, second], [third, s22]])
+      return
+    }
+    const matrix: Complex[][] = []
+    for (let i = 0; i < n; i++) matrix.push(new Array<Complex>(n))
     for (let v = 0; v < places.length; v++) {
       const value = this.toComplex(buffer[1 + 2 * v]!, buffer[2 + 2 * v]!)
       const place = places[v]!

@@ -2,7 +2,7 @@
 // [Number of Frequencies], [Number of Noise Frequencies], [Reference], [Matrix Format],
 // [Begin Information]/[End Information], [Network Data], [Noise Data], [End]. Keyword names are
 // case-insensitive. The set and its rules are recalled from memory, not copied from the standard.
-import { TouchstoneError, isDecimalLiteral, scanNumbers, tokensOf, type LineContext, type OptionLine } from './touchstone-lex'
+import { TouchstoneError, readDecimal, scanNumbers, tokensOf, type LineContext, type OptionLine } from './touchstone-lex'
 import { RecordReader, makeLayout } from './touchstone-records'
 
 type MatrixFormat = 'full' | 'lower' | 'upper'
@@ -51,7 +51,7 @@ export class V2Header {
     }
     const count = (what: string): number => {
       const value = arg(what)
-      const n = isDecimalLiteral(value, 0, value.length) ? Number(value) : Number.NaN
+      const n = readDecimal(value, 0, value.length)
       if (!Number.isInteger(n) || n < 1) this.fail('bad-keyword', `[${keyword}] needs ${what}, got '${args[0]!.text}'`, where, args[0]!.column)
       return n
     }

@@ -33,7 +33,7 @@ const VALUES_PER_LINE = 4
 
 function pairOf(value: Complex, format: DataFormat): string {
   if (format === 'RI') return `${value.re} ${value.im}`
-  const magnitude = Math.hypot(value.re, value.im)
+  const magnitude = Math.sqrt(value.re * value.re + value.im * value.im)
   const angleDeg = Math.atan2(value.im, value.re) * RAD_TO_DEG
   if (format === 'MA') return `${magnitude} ${angleDeg}`
   return `${magnitude === 0 ? ZERO_MAGNITUDE_DB : 20 * Math.log10(magnitude)} ${angleDeg}`
