@@ -110,4 +110,32 @@ describe('live durability', () => {
       expect(new Set(board.elements.map(e => e.id))).toEqual(new Set([shared, offline, online]))
     }
   })
+
+  it('reconnects a member whose role changed with the new role, and closes a removed member within 5 s', async () => {
+    const server = await boot()
+    const cookies = await signInAll(server.url)
+    const boardId = await createBoard(server.url, cookies.designer, 'Role test')
+    const members = await (await fetch(`${server.url}/api/workspaces/kestrel/members`, { headers: { cookie: cookies.admin } })).json() as { userId: number, email: string }[]
+    const ines = members.find(m => m.email === 'ines@kestrel.example')!
+    const member = (init: RequestInit) => fetch(`${server.url}/api/workspaces/kestrel/members/${ines.userId}`, {
+      ...init, headers: { 'content-type': 'application/json', cookie: cookies.admin, origin: server.url },
+    })
+    const designer = pool.track(connectLive(server.url, boardId, { cookie: cookies.designer }))
+    const person = pool.track(connectLive(server.url, boardId, { cookie: cookies.reviewer }))
+    await Promise.all([whenSynced(designer), whenSynced(person)])
+    await waitUntil(() => person.notices.at(-1)?.readOnly === true)
+
+    expect((await member({ method: 'PATCH', body: JSON.stringify({ role: 'designer' }) })).status).toBe(200)
+    await waitUntil(() => person.closeCodes.includes(4001), 5000, 'role-change close')
+    await waitUntil(() => person.provider.synced && person.notices.at(-1)?.readOnly === false, 10_000, 'reconnect as designer')
+    const id = addElement(person.doc, { kind: 'C', placement: 'series', value: 2e-12 })
+    await waitUntil(() => readBoard(designer.doc).elements.some(e => e.id === id), 5000, 'edit after promotion')
+
+    const removedAt = Date.now()
+    expect((await member({ method: 'DELETE' })).status).toBeLessThan(300)
+    await waitUntil(() => person.closeCodes.includes(4403), 5000, 'removal close')
+    expect(Date.now() - removedAt).toBeLessThan(5000)
+    await new Promise(r => setTimeout(r, 1000))
+    expect(person.provider.wsconnected).toBe(false)
+  })
 })
