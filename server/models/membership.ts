@@ -1,7 +1,8 @@
 import { DataTypes, type Model, type Optional, type Sequelize } from 'sequelize'
 
-export const ROLES = ['reviewer', 'designer', 'admin'] as const
-export type Role = typeof ROLES[number]
+import { ROLES, type Role } from '../../shared/accounts/fields'
+
+export { ROLES, type Role }
 
 /** Roles are ordered: each one may do everything the ones before it may. */
 export function roleAtLeast(role: Role, minimum: Role): boolean {

@@ -48,7 +48,13 @@ export async function requireSignedIn(event: H3Event): Promise<UserInstance> {
   return user
 }
 
-const notFound = () => createError({ statusCode: 404, message: 'Not found, or you are not a member of its workspace.' })
+// The same words whether the thing is missing or merely not the caller's to see.
+function notFound(target: AccessTarget) {
+  const what = 'workspace' in target
+    ? `workspace ${target.workspace}`
+    : 'boardId' in target ? `board ${target.boardId}` : 'snapshotId' in target ? `snapshot ${target.snapshotId}` : `template ${target.templateId}`
+  return createError({ statusCode: 404, message: `No ${what}, or you are not a member of its workspace.` })
+}
 
 /** Finds the workspace (and the board, snapshot or template) a target names, or null. */
 async function resolveTarget(target: AccessTarget) {
@@ -86,10 +92,10 @@ async function resolveTarget(target: AccessTarget) {
 export async function requireMember(event: H3Event, target: AccessTarget, minimumRole: Role): Promise<MemberAccess> {
   const user = await requireSignedIn(event)
   const found = await resolveTarget(target)
-  if (!found) throw notFound()
+  if (!found) throw notFound(target)
   const { Membership } = await useModels()
   const membership = await Membership.findOne({ where: { userId: user.id, workspaceId: found.workspace.id } })
-  if (!membership) throw notFound()
+  if (!membership) throw notFound(target)
   if (!roleAtLeast(membership.role, minimumRole)) {
     throw createError({ statusCode: 403, message: `This needs the ${minimumRole} role or higher; you are a ${membership.role} here.` })
   }

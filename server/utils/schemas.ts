@@ -1,14 +1,15 @@
-// Input shapes shared by several routes. Messages say what is wrong in words a form can show.
+// Input shapes shared by several routes. Messages say what is wrong in words a form can show; the
+// account fields are the same ones the pages check before sending (#shared/accounts/fields).
 import { z } from 'zod'
-import { ROLES, SLUG_PATTERN } from '../models'
+import { SLUG_PATTERN } from '../models/workspace'
 
-export const NameSchema = z.string({ error: 'must be text' }).trim()
-  .min(1, 'must not be empty').max(120, 'must be at most 120 characters')
-export const EmailSchema = z.string({ error: 'must be text' }).trim().toLowerCase()
-  .max(254, 'must be at most 254 characters').pipe(z.email({ error: 'must be an e-mail address' }))
-export const PasswordSchema = z.string({ error: 'must be text' })
-  .min(8, 'must be at least 8 characters').max(200, 'must be at most 200 characters')
-export const RoleSchema = z.enum(ROLES, { error: 'must be admin, designer or reviewer' })
+import * as fields from '../../shared/accounts/fields'
+
+export const NameSchema = fields.NameSchema
+export const EmailSchema = fields.EmailSchema
+export const PasswordSchema = fields.PasswordSchema
+export const RoleSchema = fields.RoleSchema
+
 export const SlugSchema = z.string({ error: 'must be text' }).regex(SLUG_PATTERN, 'is not a workspace slug')
 export const TokenSchema = z.string().min(16, 'is not a valid link token').max(100, 'is not a valid link token')
 export const BoardIdSchema = z.string().min(1).max(100)

@@ -1,11 +1,18 @@
-import { describe, expect, inject, it } from 'vitest'
+import { beforeAll, describe, expect, inject, it } from 'vitest'
 import { DEMO_BOARDS } from '../../shared/board/demo-boards'
+import { DEMO_USERS, signIn } from '../support/auth'
 
 const baseUrl = inject('baseUrl')
+// The boards are the demo workspace's: a member must be signed in to read them.
+let headers: Record<string, string> = {}
 
 describe('GET /api/boards/:id', () => {
+  beforeAll(async () => {
+    headers = { cookie: await signIn(baseUrl, DEMO_USERS.designer.email, DEMO_USERS.designer.password) }
+  })
+
   it.each(DEMO_BOARDS.map(b => b.id))('serves demo board %s with its settings and elements', async (id) => {
-    const res = await fetch(`${baseUrl}/api/boards/${id}`)
+    const res = await fetch(`${baseUrl}/api/boards/${id}`, { headers })
     expect(res.status).toBe(200)
     const body = await res.json()
     const demo = DEMO_BOARDS.find(b => b.id === id)!
@@ -18,7 +25,7 @@ describe('GET /api/boards/:id', () => {
   })
 
   it('answers 404 JSON with a message for an unknown id', async () => {
-    const res = await fetch(`${baseUrl}/api/boards/no-such-board`)
+    const res = await fetch(`${baseUrl}/api/boards/no-such-board`, { headers })
     expect(res.status).toBe(404)
     const body = await res.json()
     expect(body.statusCode).toBe(404)
@@ -26,7 +33,7 @@ describe('GET /api/boards/:id', () => {
   })
 
   it('answers 400 naming the id for a malformed id', async () => {
-    const res = await fetch(`${baseUrl}/api/boards/${encodeURIComponent('bad id!')}`)
+    const res = await fetch(`${baseUrl}/api/boards/${encodeURIComponent('bad id!')}`, { headers })
     expect(res.status).toBe(400)
     const body = await res.json()
     expect(body.message).toMatch(/id/)

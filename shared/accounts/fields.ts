@@ -1,0 +1,28 @@
+// Form fields shared by the pages (to show what is wrong before sending) and the server routes
+// (which decide). Messages are written to be shown beside the field.
+import { z } from 'zod'
+
+export const NAME_MAX = 120
+
+export const NameSchema = z.string({ error: 'must be text' }).trim()
+  .min(1, 'must not be empty').max(NAME_MAX, `must be at most ${NAME_MAX} characters`)
+export const EmailSchema = z.string({ error: 'must be text' }).trim().toLowerCase()
+  .max(254, 'must be at most 254 characters').pipe(z.email({ error: 'must be an e-mail address' }))
+export const PasswordSchema = z.string({ error: 'must be text' })
+  .min(8, 'must be at least 8 characters').max(200, 'must be at most 200 characters')
+
+export const ROLES = ['reviewer', 'designer', 'admin'] as const
+export type Role = typeof ROLES[number]
+export const RoleSchema = z.enum(ROLES, { error: 'must be admin, designer or reviewer' })
+
+/** Field name → first problem, for showing beside each input; empty when all is well. */
+export function fieldErrors(schema: z.ZodType, values: unknown): Record<string, string> {
+  const parsed = schema.safeParse(values)
+  if (parsed.success) return {}
+  const errors: Record<string, string> = {}
+  for (const issue of parsed.error.issues) {
+    const key = String(issue.path[0] ?? 'form')
+    errors[key] ??= issue.message
+  }
+  return errors
+}

@@ -1,0 +1,138 @@
+// Every API route called as each kind of caller; each cell's status is asserted. Rows are the
+// routes, columns: anonymous, reviewer, designer (both of kestrel), admin of another workspace,
+// admin of kestrel. What a caller may not see answers 404; what their role may not do, 403.
+import { beforeAll, describe, expect, inject, it } from 'vitest'
+import { DEMO_USERS, cookieFrom, signIn } from '../support/auth'
+
+const baseUrl = inject('baseUrl')
+
+type Persona = 'anonymous' | 'reviewer' | 'designer' | 'otherAdmin' | 'admin'
+const PERSONAS: Persona[] = ['anonymous', 'reviewer', 'designer', 'otherAdmin', 'admin']
+const cookies: Partial<Record<Persona, string>> = {}
+let boardId = ''
+let snapshotId = ''
+let designerId = 0
+let counter = 0
+
+async function call(persona: Persona, method: string, path: string, body?: unknown) {
+  const headers: Record<string, string> = {}
+  if (cookies[persona]) headers.cookie = cookies[persona]!
+  if (body !== undefined) headers['content-type'] = 'application/json'
+  const res = await fetch(`${baseUrl}${path}`, { method, headers, body: body === undefined ? undefined : JSON.stringify(body) })
+  const text = await res.text()
+  return { status: res.status, json: text ? JSON.parse(text) : null }
+}
+
+async function newBoard(name: string): Promise<string> {
+  const res = await call('admin', 'POST', '/api/boards', { workspace: 'kestrel', name })
+  expect(res.status).toBe(201)
+  return res.json.id
+}
+
+beforeAll(async () => {
+  cookies.reviewer = await signIn(baseUrl, DEMO_USERS.reviewer.email, DEMO_USERS.reviewer.password)
+  cookies.designer = await signIn(baseUrl, DEMO_USERS.designer.email, DEMO_USERS.designer.password)
+  cookies.admin = await signIn(baseUrl, DEMO_USERS.admin.email, DEMO_USERS.admin.password)
+  const signup = await fetch(`${baseUrl}/api/auth/signup`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ name: 'Olga Outsider', email: `olga-${Date.now()}@elsewhere.example`, password: 'outsider-password' }),
+  })
+  expect(signup.status).toBe(201)
+  cookies.otherAdmin = cookieFrom(signup)
+  // A board of our own, so restores and deletes never touch the demo boards other tests read.
+  boardId = await newBoard('Role matrix board')
+  const snap = await call('admin', 'POST', `/api/boards/${boardId}/snapshots`, { label: 'matrix snapshot' })
+  snapshotId = snap.json.id
+  const members = await call('admin', 'GET', '/api/workspaces/kestrel/members')
+  designerId = members.json.find((m: { email: string }) => m.email === DEMO_USERS.designer.email).userId
+})
+
+interface Row {
+  route: string
+  method: string
+  /** The path (and body) for one call; called per cell so destructive routes get a fresh target. */
+  request: () => Promise<{ path: string, body?: unknown }> | { path: string, body?: unknown }
+  expected: Record<Persona, number>
+}
+
+const row = (anonymous: number, reviewer: number, designer: number, otherAdmin: number, admin: number) =>
+  ({ anonymous, reviewer, designer, otherAdmin, admin })
+
+const ROWS: Row[] = [
+  { route: 'GET /api/auth/me', method: 'GET', request: () => ({ path: '/api/auth/me' }), expected: row(401, 200, 200, 200, 200) },
+  { route: 'GET /api/workspaces', method: 'GET', request: () => ({ path: '/api/workspaces' }), expected: row(401, 200, 200, 200, 200) },
+  { route: 'GET /api/workspaces/:slug', method: 'GET', request: () => ({ path: '/api/workspaces/kestrel' }), expected: row(401, 200, 200, 404, 200) },
+  { route: 'GET /api/workspaces/:slug/members', method: 'GET', request: () => ({ path: '/api/workspaces/kestrel/members' }), expected: row(401, 200, 200, 404, 200) },
+  {
+    route: 'PATCH /api/workspaces/:slug/members/:userId', method: 'PATCH',
+    request: () => ({ path: `/api/workspaces/kestrel/members/${designerId}`, body: { role: 'designer' } }),
+    expected: row(401, 403, 403, 404, 200),
+  },
+  {
+    route: 'DELETE /api/workspaces/:slug/members/:userId (someone else, not a member)', method: 'DELETE',
+    request: () => ({ path: '/api/workspaces/kestrel/members/999999' }),
+    expected: row(401, 403, 403, 404, 404),
+  },
+  { route: 'GET /api/workspaces/:slug/invitations', method: 'GET', request: () => ({ path: '/api/workspaces/kestrel/invitations' }), expected: row(401, 403, 403, 404, 200) },
+  {
+    route: 'POST /api/workspaces/:slug/invitations', method: 'POST',
+    request: () => ({ path: '/api/workspaces/kestrel/invitations', body: { email: `invitee-${++counter}@matrix.example`, role: 'reviewer' } }),
+    expected: row(401, 403, 403, 404, 201),
+  },
+  { route: 'GET /api/workspaces/:slug/templates', method: 'GET', request: () => ({ path: '/api/workspaces/kestrel/templates' }), expected: row(401, 200, 200, 404, 200) },
+  { route: 'GET /api/workspaces/:slug/outbox', method: 'GET', request: () => ({ path: '/api/workspaces/kestrel/outbox' }), expected: row(401, 403, 403, 404, 200) },
+  { route: 'GET /api/boards?workspace=', method: 'GET', request: () => ({ path: '/api/boards?workspace=kestrel' }), expected: row(401, 200, 200, 404, 200) },
+  {
+    route: 'POST /api/boards', method: 'POST',
+    request: () => ({ path: '/api/boards', body: { workspace: 'kestrel', name: `Matrix created ${++counter}` } }),
+    expected: row(401, 403, 201, 404, 201),
+  },
+  { route: 'GET /api/boards/:id', method: 'GET', request: () => ({ path: `/api/boards/${boardId}` }), expected: row(401, 200, 200, 404, 200) },
+  { route: 'PATCH /api/boards/:id', method: 'PATCH', request: () => ({ path: `/api/boards/${boardId}`, body: { name: 'Role matrix board, renamed' } }), expected: row(401, 403, 200, 404, 200) },
+  {
+    route: 'DELETE /api/boards/:id', method: 'DELETE',
+    request: async () => ({ path: `/api/boards/${await newBoard(`Doomed ${++counter}`)}` }),
+    expected: row(401, 403, 200, 404, 200),
+  },
+  { route: 'GET /api/boards/:id/snapshots', method: 'GET', request: () => ({ path: `/api/boards/${boardId}/snapshots` }), expected: row(401, 200, 200, 404, 200) },
+  { route: 'POST /api/boards/:id/snapshots', method: 'POST', request: () => ({ path: `/api/boards/${boardId}/snapshots`, body: { label: 'cell snapshot' } }), expected: row(401, 201, 201, 404, 201) },
+  { route: 'GET /api/snapshots/:id', method: 'GET', request: () => ({ path: `/api/snapshots/${snapshotId}` }), expected: row(401, 200, 200, 404, 200) },
+  { route: 'POST /api/snapshots/:id/restore', method: 'POST', request: () => ({ path: `/api/snapshots/${snapshotId}/restore` }), expected: row(401, 403, 200, 404, 200) },
+  { route: 'POST /api/snapshots/:id/publish', method: 'POST', request: () => ({ path: `/api/snapshots/${snapshotId}/publish`, body: { name: 'Matrix template' } }), expected: row(401, 403, 403, 404, 201) },
+  {
+    route: 'POST /api/snapshots/:id/share', method: 'POST',
+    request: () => ({ path: `/api/snapshots/${snapshotId}/share`, body: { email: DEMO_USERS.reviewer.email } }),
+    expected: row(401, 200, 200, 404, 200),
+  },
+  {
+    route: 'POST /api/invitations/:token/accept (unknown token)', method: 'POST',
+    request: () => ({ path: '/api/invitations/unknown-token-unknown-token-0000/accept' }),
+    expected: row(401, 404, 404, 404, 404),
+  },
+  { route: 'POST /api/auth/logout', method: 'POST', request: () => ({ path: '/api/auth/logout' }), expected: row(200, 200, 200, 200, 200) },
+]
+
+describe('role matrix', () => {
+  for (const r of ROWS) {
+    it(r.route, async () => {
+      const got: Record<string, number> = {}
+      for (const persona of PERSONAS) {
+        const { path, body } = await r.request()
+        const res = await call(persona, r.method, path, body)
+        got[persona] = res.status
+        if (res.status >= 400) expect(typeof res.json?.message === 'string' && res.json.message.length > 0).toBe(true)
+      }
+      expect(got).toEqual(r.expected)
+    })
+  }
+
+  it('a reviewer may take a snapshot but the board does not change', async () => {
+    const before = await call('admin', 'GET', `/api/boards/${boardId}`)
+    const res = await call('reviewer', 'POST', `/api/boards/${boardId}/snapshots`, { label: 'reviewer look' })
+    expect(res.status).toBe(201)
+    expect(res.json.author.name).toBe(DEMO_USERS.reviewer.name)
+    const after = await call('admin', 'GET', `/api/boards/${boardId}`)
+    expect(after.json.elements).toEqual(before.json.elements)
+  })
+})
