@@ -1,0 +1,97 @@
+// The one editable figure of each element kind (a part value, a length, a ratio), how it is shown
+// in engineering notation and how typed text becomes a value. Typed text is refused with a message
+// that says what is wrong; nothing here touches a document.
+import { formatEng, parseEng } from '../rf'
+import type { BoardElement, ElementJson, ElementKind } from './schema'
+
+/** The field a tile edits and a chart drag changes. */
+export type EditField = 'value' | 'deg' | 'ratio' | 'z0'
+
+export function mainFieldOf(kind: ElementKind): Exclude<EditField, 'z0'> {
+  if (kind === 'line' || kind === 'stub') return 'deg'
+  if (kind === 'xfmr') return 'ratio'
+  return 'value'
+}
+
+const UNIT_OF_KIND: Record<'L' | 'C' | 'R', string> = { L: 'H', C: 'F', R: 'Ω' }
+
+/** The unit symbol of a field of an element kind. */
+export function unitOf(kind: ElementKind, field: EditField): string {
+  if (field === 'z0') return 'Ω'
+  if (field === 'deg') return '°'
+  if (field === 'ratio') return ':1'
+  return UNIT_OF_KIND[kind as 'L' | 'C' | 'R']
+}
+
+export function fieldValueOf(element: ElementJson, field: EditField): number | undefined {
+  const value = (element as Record<string, unknown>)[field]
+  return typeof value === 'number' ? value : undefined
+}
+
+/** A copy of the element with `field` set; fields that the kind lacks are ignored. */
+export function withFieldValue<E extends ElementJson>(element: E, field: EditField, value: number): E {
+  if (!(field in element)) return element
+  return { ...element, [field]: value }
+}
+
+function significant(value: number, digits = 4): string {
+  return String(Number(value.toPrecision(digits)))
+}
+
+/** The field's value as shown on a tile: "4.7 nH", "30°", "2:1", "50 Ω". */
+export function formatField(element: ElementJson, field: EditField): string {
+  const value = fieldValueOf(element, field)
+  if (value === undefined) return ''
+  if (field === 'deg') return `${significant(value)}°`
+  if (field === 'ratio') return `${significant(value)}:1`
+  return formatEng(value, unitOf(element.kind, field))
+}
+
+export class ValueEntryError extends Error {
+  override name = 'ValueEntryError'
+}
+
+// Unit words people type after a number; removed before the SI prefix is read.
+const UNIT_SUFFIXES: Record<EditField, RegExp> = {
+  value: /\s*(H|F|Ω|ohms?|Ohms?)$/,
+  z0: /\s*(Ω|ohms?|Ohms?)$/,
+  deg: /\s*(°|deg|degrees?)$/,
+  ratio: /\s*(:\s*1|x)$/,
+}
+
+/**
+ * The number typed for `field` of a `kind` element ("4.7p", "12n", "1k", "2.2 nH", "45°").
+ * Throws ValueEntryError with a message for the person typing.
+ */
+export function parseFieldValue(kind: ElementKind, field: EditField, text: string): number {
+  const trimmed = text.trim()
+  if (!trimmed) throw new ValueEntryError('Type a value, e.g. 4.7p or 12n')
+  const bare = trimmed.replace(UNIT_SUFFIXES[field], '')
+  let value: number
+  try {
+    value = parseEng(bare)
+  }
+  catch (error) {
+    throw new ValueEntryError(error instanceof Error ? error.message : `“${trimmed}” is not a number`)
+  }
+  if (!Number.isFinite(value)) throw new ValueEntryError(`“${trimmed}” is not a finite number`)
+  if (field === 'deg') {
+    if (value < 0) throw new ValueEntryError('A length cannot be negative')
+    if (value > 36000) throw new ValueEntryError('A length above 36000° is not plausible')
+  }
+  else if (value <= 0) {
+    const what = field === 'ratio' ? 'A turns ratio' : field === 'z0' ? 'A line impedance' : 'A part value'
+    throw new ValueEntryError(`${what} must be greater than zero`)
+  }
+  return value
+}
+
+/** A short name of the element for tiles and tables: "series L", "shunt open stub", "line". */
+export function elementLabel(element: Pick<BoardElement, 'kind'> & { placement?: string, end?: string }): string {
+  switch (element.kind) {
+    case 'line': return 'line'
+    case 'xfmr': return 'transformer'
+    case 'stub': return `${element.placement} ${element.end} stub`
+    default: return `${element.placement} ${element.kind}`
+  }
+}

@@ -1,0 +1,370 @@
+// The reactive view of the open board: plain snapshots read from the Y.Doc, session state (the
+// selection, a drag draft, a solver preview, chart toggles) and computed RF results. Edits go
+// through useBoardDoc (which owns the document); nothing here holds a Y.Doc.
+import { acceptHMRUpdate, defineStore } from 'pinia'
+import { computed, ref } from 'vue'
+import {
+  gammaOf, nearestStandard, returnLossDb, sweep, trace, type Complex,
+} from '#shared/rf'
+import {
+  DEFAULT_SETTINGS,
+  type BoardContent, type BoardElement, type BoardSettings, type BoardSnapshot, type ElementJson,
+  type SnapSeries, type Terminal, type TerminalSide,
+} from '#shared/board/schema'
+import { bandFrequencies as bandGrid, bandVerdict as verdictOf, withReferenceFrequency } from '#shared/board/band'
+import { goalOf, reflectionReference, terminalImpedance, terminalImpedances } from '#shared/board/terminals'
+import { readoutOf } from '#shared/board/readout'
+import { mainFieldOf, parseFieldValue, withFieldValue, type EditField } from '#shared/board/element-values'
+import { ELEMENT_ADDITIONS } from '#shared/board/additions'
+import { settingsPatchFor, terminalWithField, type SettingsField, type TerminalField } from '#shared/board/entry'
+import { matchSolutions } from '#shared/board/solutions'
+import { partRows } from '#shared/board/parts'
+import { useBoardDoc } from '~/composables/useBoardDoc'
+
+export interface BoardRecordInput extends BoardContent {
+  id: string
+  name: string
+  workspace?: string
+}
+
+export interface DragDraft {
+  elementId: string
+  value: number
+}
+
+function messageOf(error: unknown): string {
+  return error instanceof Error ? error.message : String(error)
+}
+
+/** The ladder with every lumped part set to its nearest value of `series`. */
+function snapped<E extends ElementJson>(elements: readonly E[], series: Exclude<SnapSeries, 'none'>): E[] {
+  return elements.map(e =>
+    (e.kind === 'L' || e.kind === 'C' || e.kind === 'R') ? { ...e, value: nearestStandard(e.value, series) } : e)
+}
+
+export const useBoardStore = defineStore('board', () => {
+  // ---- document snapshot (read from the Y.Doc only) ----
+  const boardId = ref<string | null>(null)
+  const name = ref('')
+  const workspace = ref('')
+  const isLoaded = ref(false)
+  const readOnly = ref(false)
+  const settings = ref<BoardSettings>(structuredClone(DEFAULT_SETTINGS))
+  const elements = ref<BoardElement[]>([])
+  const problems = ref<string[]>([])
+  const canUndo = ref(false)
+  const canRedo = ref(false)
+
+  // ---- session ----
+  const selectedId = ref<string | null>(null)
+  const draft = ref<DragDraft | null>(null)
+  const preview = ref<BoardElement[] | null>(null)
+  const lastError = ref<string | null>(null)
+  const loadedQ = ref(3)
+
+  // ---- view toggles (the chart reads these) ----
+  const showImpedanceGrid = ref(true)
+  const showAdmittanceGrid = ref(false)
+  const showQArcs = ref(false)
+  const qArcValue = ref(2)
+  const plotQuantity = ref<'returnLoss' | 'gammaMagnitude'>('returnLoss')
+
+  // ---- computed RF results ----
+  const z0 = computed(() => settings.value.z0)
+  const frequencyHz = computed(() => settings.value.frequencyHz)
+
+  /** The ladder as drawn: the document's elements with the drag draft applied. */
+  const effectiveElements = computed<BoardElement[]>(() => {
+    const d = draft.value
+    if (!d) return elements.value
+    return elements.value.map(e => e.id === d.elementId ? withFieldValue(e, mainFieldOf(e.kind), d.value) : e)
+  })
+
+  const loadZ = computed<Complex>(() => terminalImpedance(settings.value.load, frequencyHz.value, z0.value))
+  const sourceZ = computed<Complex>(() => terminalImpedance(settings.value.source, frequencyHz.value, z0.value))
+  const goal = computed<Complex>(() => goalOf(sourceZ.value))
+  /** Γ of the end point is taken against this: z0 for a Z0 source, else the source impedance. */
+  const reference = computed(() => reflectionReference(sourceZ.value, settings.value))
+
+  function traceOf(ladder: readonly ElementJson[]): Complex[] {
+    return trace({ z0: z0.value, frequency: frequencyHz.value, load: loadZ.value, elements: ladder })
+  }
+
+  /** Impedances (Ω) after 0…n elements at the design frequency, draft applied; [0] is the load. */
+  const traceAtDesign = computed<Complex[]>(() => traceOf(effectiveElements.value))
+  const endPoint = computed<Complex>(() => traceAtDesign.value[traceAtDesign.value.length - 1]!)
+  const endpointReadout = computed(() => readoutOf(endPoint.value, reference.value))
+  /** The end point as Γ against z0: its position on the chart. */
+  const endpointChartGamma = computed(() => gammaOf(endPoint.value, z0.value))
+
+  const bandFrequencies = computed(() => bandGrid(settings.value))
+  const bandLoadZ = computed(() => terminalImpedances(settings.value.load, bandFrequencies.value, z0.value))
+  const bandReferences = computed<(number | Complex)[]>(() => {
+    if (settings.value.source.kind === 'z0') return bandFrequencies.value.map(() => z0.value)
+    return terminalImpedances(settings.value.source, bandFrequencies.value, z0.value)
+      .map(zs => reflectionReference(zs, settings.value))
+  })
+
+  function sweepOf(ladder: readonly ElementJson[]): Complex[] {
+    return sweep({
+      z0: z0.value,
+      frequencies: bandFrequencies.value,
+      load: bandLoadZ.value,
+      elements: withReferenceFrequency(ladder, frequencyHz.value),
+    })
+  }
+  function gammaAcrossBand(impedances: readonly Complex[]): Complex[] {
+    return impedances.map((z, k) => gammaOf(z, bandReferences.value[k]!))
+  }
+  function returnLossAcrossBand(gammas: readonly Complex[]): number[] {
+    return gammas.map(g => returnLossDb(g))
+  }
+
+  /** Source-end impedance (Ω) at each band frequency, draft applied. */
+  const bandSweep = computed(() => sweepOf(effectiveElements.value))
+  /** Γ at each band frequency against the source (power wave) or z0. */
+  const bandGamma = computed(() => gammaAcrossBand(bandSweep.value))
+  const bandReturnLossDb = computed(() => returnLossAcrossBand(bandGamma.value))
+  const bandVerdict = computed(() => verdictOf(bandFrequencies.value, bandReturnLossDb.value, settings.value.spec))
+
+  /** The series the parts list rounds to: the snap series, or E24 when snapping is off. */
+  const partsSeries = computed<Exclude<SnapSeries, 'none'>>(() =>
+    settings.value.snapSeries === 'none' ? 'E24' : settings.value.snapSeries)
+  const snappedElements = computed(() => snapped(effectiveElements.value, partsSeries.value))
+  const snappedBandGamma = computed(() => gammaAcrossBand(sweepOf(snappedElements.value)))
+  const snappedBandReturnLossDb = computed(() => returnLossAcrossBand(snappedBandGamma.value))
+  const snappedBandVerdict = computed(() => verdictOf(bandFrequencies.value, snappedBandReturnLossDb.value, settings.value.spec))
+
+  const partsList = computed(() => partRows(effectiveElements.value, partsSeries.value))
+
+  /** What the band plot draws: return loss (dB) or |Γ| per frequency, as drawn and as snapped. */
+  const bandPlot = computed(() => {
+    const isReturnLoss = plotQuantity.value === 'returnLoss'
+    const magnitude = (g: Complex) => Math.hypot(g.re, g.im)
+    const minRl = settings.value.spec.minReturnLossDb
+    return {
+      quantity: plotQuantity.value,
+      frequenciesHz: bandFrequencies.value,
+      values: isReturnLoss ? bandReturnLossDb.value : bandGamma.value.map(magnitude),
+      snappedValues: isReturnLoss ? snappedBandReturnLossDb.value : snappedBandGamma.value.map(magnitude),
+      // The spec line: RL ≥ min, or equivalently |Γ| ≤ 10^(−min/20).
+      threshold: isReturnLoss ? minRl : 10 ** (-minRl / 20),
+      spec: settings.value.spec,
+    }
+  })
+
+  const solveResult = computed(() => matchSolutions({
+    z0: z0.value, frequencyHz: frequencyHz.value, loadZ: loadZ.value, goal: goal.value, loadedQ: loadedQ.value,
+  }))
+  /** Each solution with its return loss at the design frequency and its band verdict. */
+  const solutions = computed(() => solveResult.value.solutions.map((s) => {
+    const points = traceOf(s.elements)
+    const gamma = gammaOf(points[points.length - 1]!, reference.value)
+    const bandRl = returnLossAcrossBand(gammaAcrossBand(sweepOf(s.elements)))
+    return { ...s, returnLossDb: returnLossDb(gamma), verdict: verdictOf(bandFrequencies.value, bandRl, settings.value.spec) }
+  }))
+  const solveNotes = computed(() => solveResult.value.notes)
+  /** The solver preview traced at the design frequency, for the chart's dashed trace. */
+  const previewTrace = computed<Complex[] | null>(() => preview.value ? traceOf(preview.value) : null)
+
+  // ---- document lifecycle ----
+  const boardDoc = useBoardDoc()
+
+  function applySnapshot(snapshot: BoardSnapshot) {
+    settings.value = snapshot.settings
+    elements.value = snapshot.elements
+    problems.value = snapshot.problems
+    const ids = new Set(snapshot.elements.map(e => e.id))
+    if (selectedId.value && !ids.has(selectedId.value)) selectedId.value = null
+    if (draft.value && !ids.has(draft.value.elementId)) draft.value = null
+  }
+  function setHistory(history: { canUndo: boolean, canRedo: boolean }) {
+    canUndo.value = history.canUndo
+    canRedo.value = history.canRedo
+  }
+
+  /** Opens a board (from GET /api/boards/:id) as the document being edited. */
+  function openBoard(record: BoardRecordInput, options: { readOnly?: boolean } = {}) {
+    boardId.value = record.id
+    name.value = record.name
+    workspace.value = record.workspace ?? ''
+    readOnly.value = options.readOnly ?? false
+    selectedId.value = null
+    draft.value = null
+    preview.value = null
+    lastError.value = null
+    boardDoc.open({ settings: record.settings, elements: record.elements }, { applySnapshot, setHistory })
+    isLoaded.value = true
+  }
+  function closeBoard() {
+    boardDoc.close()
+    isLoaded.value = false
+    boardId.value = null
+  }
+
+  /** Runs one edit; a refusal is kept in lastError and returned as its message (null when done). */
+  function edit(run: () => void): string | null {
+    if (readOnly.value) return (lastError.value = 'This board is read-only for you.')
+    try {
+      run()
+      lastError.value = null
+      return null
+    }
+    catch (error) {
+      return (lastError.value = messageOf(error))
+    }
+  }
+
+  // ---- ladder edits ----
+  function addElement(element: ElementJson, index?: number): string | null {
+    let id: string | null = null
+    edit(() => { id = boardDoc.addElement(element, index) })
+    if (id) selectedId.value = id
+    return id
+  }
+  function addFromPalette(additionId: string): string | null {
+    const addition = ELEMENT_ADDITIONS.find(a => a.id === additionId)
+    if (!addition) return null
+    return addElement(addition.make(settings.value))
+  }
+  const removeElement = (id: string) => edit(() => boardDoc.removeElement(id))
+  const moveElement = (id: string, toIndex: number) => edit(() => boardDoc.moveElement(id, toIndex))
+  const updateElement = (id: string, patch: Record<string, unknown>) => edit(() => boardDoc.updateElement(id, patch))
+  const setLocked = (id: string, locked: boolean) => edit(() => boardDoc.setLocked(id, locked))
+
+  /**
+   * Sets one field of an element from typed text ("4.7p", "12n", "45°"). Returns null when
+   * done, or the message saying why the text was refused (the document is then untouched).
+   */
+  function setElementField(id: string, field: EditField, text: string): string | null {
+    const element = elements.value.find(e => e.id === id)
+    if (!element) return 'That element is no longer on the board.'
+    let value: number
+    try {
+      value = parseFieldValue(element.kind, field, text)
+    }
+    catch (error) {
+      return messageOf(error)
+    }
+    return updateElement(id, { [field]: value })
+  }
+
+  function select(id: string | null) {
+    selectedId.value = id
+  }
+
+  // ---- dragging on the chart: a draft in the store, one transaction on release ----
+  function beginDrag(elementId: string): boolean {
+    const element = elements.value.find(e => e.id === elementId)
+    if (!element || element.locked || readOnly.value || element.kind === 'xfmr') return false
+    const value = (element as Record<string, unknown>)[mainFieldOf(element.kind)] as number
+    draft.value = { elementId, value }
+    selectedId.value = elementId
+    return true
+  }
+  /** Moves the draft value (snapped to the snap series for L, C and R). The document is untouched. */
+  function dragTo(value: number) {
+    const d = draft.value
+    if (!d || !Number.isFinite(value) || value < 0) return
+    const element = elements.value.find(e => e.id === d.elementId)
+    const series = settings.value.snapSeries
+    const isLumped = element && (element.kind === 'L' || element.kind === 'C' || element.kind === 'R')
+    const next = isLumped && series !== 'none' && value > 0 ? nearestStandard(value, series) : value
+    draft.value = { elementId: d.elementId, value: next }
+  }
+  /** Writes the draft as one transaction (one undo step). Returns a refusal message or null. */
+  function commitDrag(): string | null {
+    const d = draft.value
+    if (!d) return null
+    const element = elements.value.find(e => e.id === d.elementId)
+    draft.value = null
+    if (!element) return null
+    const field = mainFieldOf(element.kind)
+    if ((element as Record<string, unknown>)[field] === d.value) return null
+    return updateElement(d.elementId, { [field]: d.value })
+  }
+  function cancelDrag() {
+    draft.value = null
+  }
+
+  // ---- settings and terminals ----
+  const updateSettings = (patch: Partial<BoardSettings>) => edit(() => boardDoc.updateSettings(patch))
+  const setTerminal = (side: TerminalSide, terminal: Terminal) => edit(() => boardDoc.setTerminal(side, terminal))
+
+  /** Sets one settings field from typed text; returns the refusal message or null. */
+  function setSettingsField(field: SettingsField, text: string): string | null {
+    try {
+      return updateSettings(settingsPatchFor(settings.value, field, text))
+    }
+    catch (error) {
+      return messageOf(error)
+    }
+  }
+  /** Sets one value of a terminal from typed text; returns the refusal message or null. */
+  function setTerminalField(side: TerminalSide, field: TerminalField, text: string): string | null {
+    try {
+      return setTerminal(side, terminalWithField(settings.value[side], field, text))
+    }
+    catch (error) {
+      return messageOf(error)
+    }
+  }
+  /** Switches a terminal's model, starting from its present impedance at the design frequency. */
+  function setTerminalKind(side: TerminalSide, kind: Terminal['kind']): string | null {
+    const current = settings.value[side]
+    if (current.kind === kind) return null
+    const z = side === 'load' ? loadZ.value : sourceZ.value
+    if (kind === 'z0') return setTerminal(side, { kind: 'z0' })
+    if (kind === 'impedance') return setTerminal(side, { kind: 'impedance', z: { re: Math.max(0, z.re), im: z.im } })
+    return setTerminal(side, { kind: 'rlc', topology: 'series', r: Math.max(0, z.re) || z0.value })
+  }
+  function setTerminalTopology(side: TerminalSide, topology: 'series' | 'parallel'): string | null {
+    const current = settings.value[side]
+    if (current.kind !== 'rlc') return null
+    return setTerminal(side, { ...current, topology })
+  }
+
+  // ---- solver ----
+  function setPreview(ladder: ElementJson[] | null) {
+    preview.value = ladder ? ladder.map((e, i) => ({ ...e, id: `preview-${i}` }) as BoardElement) : null
+  }
+  /** Replaces the ladder with a solution, as one undo step. */
+  function applySolution(ladder: ElementJson[]): string | null {
+    preview.value = null
+    return edit(() => { boardDoc.replaceLadder(ladder) })
+  }
+  function setLoadedQ(q: number) {
+    if (Number.isFinite(q) && q > 0) loadedQ.value = q
+  }
+
+  // ---- history ----
+  function undo() {
+    if (draft.value) return cancelDrag()
+    boardDoc.undo()
+  }
+  function redo() {
+    if (!draft.value) boardDoc.redo()
+  }
+
+  return {
+    // state
+    boardId, name, workspace, isLoaded, readOnly, settings, elements, problems, canUndo, canRedo,
+    selectedId, draft, preview, lastError, loadedQ,
+    showImpedanceGrid, showAdmittanceGrid, showQArcs, qArcValue, plotQuantity,
+    // computed
+    z0, frequencyHz, effectiveElements, loadZ, sourceZ, goal, reference,
+    traceAtDesign, endPoint, endpointReadout, endpointChartGamma,
+    bandFrequencies, bandLoadZ, bandSweep, bandGamma, bandReturnLossDb, bandVerdict,
+    partsSeries, snappedElements, snappedBandGamma, snappedBandReturnLossDb, snappedBandVerdict, partsList, bandPlot,
+    solutions, solveNotes, previewTrace,
+    // actions
+    openBoard, closeBoard, applySnapshot, setHistory,
+    addElement, addFromPalette, removeElement, moveElement, updateElement, setLocked, setElementField, select,
+    beginDrag, dragTo, commitDrag, cancelDrag,
+    updateSettings, setTerminal, setSettingsField, setTerminalField, setTerminalKind, setTerminalTopology,
+    setPreview, applySolution, setLoadedQ,
+    undo, redo,
+  }
+})
+
+if (import.meta.hot) import.meta.hot.accept(acceptHMRUpdate(useBoardStore, import.meta.hot))
