@@ -7,24 +7,10 @@ import { listenForAccessNotice } from '../../shared/live/provider'
 import type { AccessNotice } from '../../shared/live/protocol'
 
 export const DEMO_BOARD_ID = 'kestrel-915-antenna'
-export const DEMO_ACCOUNTS = {
-  admin: { email: 'mara@kestrel.example', password: 'kestrel-admin-demo' },
-  designer: { email: 'tomas@kestrel.example', password: 'kestrel-designer-demo' },
-  reviewer: { email: 'ines@kestrel.example', password: 'kestrel-reviewer-demo' },
-} as const
 
-/** Signs in through POST /api/auth/login and returns the `name=value` session cookie. */
-export async function sessionCookie(baseUrl: string, account: { email: string, password: string }): Promise<string> {
-  const res = await fetch(`${baseUrl}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json' },
-    body: JSON.stringify(account),
-  })
-  if (!res.ok) throw new Error(`sign-in as ${account.email} failed: ${res.status} ${await res.text()}`)
-  const cookie = res.headers.getSetCookie().map(c => c.split(';')[0]).join('; ')
-  if (!cookie) throw new Error('sign-in answered without a cookie')
-  return cookie
-}
+// y-websocket adds one process 'exit' listener per provider in Node; tests and the benchmark open
+// hundreds on purpose.
+process.setMaxListeners(Math.max(process.getMaxListeners(), 500))
 
 export const liveUrl = (baseUrl: string) => `${baseUrl.replace(/^http/, 'ws')}/live`
 
