@@ -74,6 +74,11 @@ export function validateElement(value: unknown, path: string, check: ElementChec
     case 'xfmr':
       requirePositive(e.ratio, `${path}.ratio`)
       break
+    case 'block':
+      if (typeof e.uploadId !== 'string' || e.uploadId === '') {
+        throw new RfInputError(`${path}.uploadId`, `must name the measured upload, got ${describe(e.uploadId)}`)
+      }
+      break
   }
   return value as Element
 }
@@ -97,10 +102,10 @@ export function electricalDegrees(element: { deg: number; fRef?: number }, frequ
   return element.fRef === undefined ? element.deg : (element.deg * frequencyHz) / element.fRef
 }
 
-type TwoTerminal = Exclude<Element, { kind: 'line' } | { kind: 'xfmr' }>
+type TwoTerminal = Exclude<Element, { kind: 'line' } | { kind: 'xfmr' } | { kind: 'block' }>
 
 function asTwoTerminal(element: Element): TwoTerminal {
-  if (element.kind === 'line' || element.kind === 'xfmr') {
+  if (element.kind === 'line' || element.kind === 'xfmr' || element.kind === 'block') {
     throw new RfInputError('element', `a ${element.kind} is a two-port and has no single impedance`)
   }
   return element

@@ -5,7 +5,8 @@ import type { Complex, Element } from './types'
 import { asComplex } from './complex'
 import { requirePositive } from './errors'
 import { requireFrequency, validateElements } from './elements'
-import { applyElementToPoints, createPoints, readImpedance, setPoint } from './points'
+import { createPoints, readImpedance, setPoint } from './points'
+import { applyLadderElement, type BlockLookup, type BlockRange } from './twoport'
 
 /** Arguments of `trace`. `load` may be `OPEN` ({ re: Infinity, im: 0 }) or a short ({ re: 0, im: 0 }). */
 export type TraceInput = {
@@ -16,6 +17,10 @@ export type TraceInput = {
   readonly load: Complex
   /** Ordered from the load towards the source. */
   readonly elements: readonly Element[]
+  /** Measured data of the ladder's `block` elements, by upload id. */
+  readonly blocks?: BlockLookup
+  /** A block outside its measured range: throw ('strict', default) or use its nearest point. */
+  readonly blockRange?: BlockRange
 }
 
 /**
@@ -34,8 +39,8 @@ export function trace(input: TraceInput): Complex[] {
   setPoint(p, 0, load)
   const freq = [f]
   const out: Complex[] = [load]
-  for (const e of elements) {
-    applyElementToPoints(p, e, freq)
+  for (const [i, e] of elements.entries()) {
+    applyLadderElement(p, e, freq, input.blocks, `elements[${i}]`, input.blockRange)
     out.push(readImpedance(p, 0))
   }
   return out

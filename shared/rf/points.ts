@@ -16,6 +16,7 @@
  */
 import type { Complex, Element } from './types'
 import { divideParts, isInfinite } from './complex'
+import { RfInputError } from './errors'
 
 /** n points z[i] = (aRe[i] + j aIm[i]) / (bRe[i] + j bIm[i]). */
 export type PointBuffer = {
@@ -139,6 +140,9 @@ export function applyElementToPoints(p: PointBuffer, element: Element, frequenci
       }
       break
     }
+    case 'block':
+      // Measured data is not in the element; trace and sweep route blocks through twoport.ts.
+      throw new RfInputError('element', 'a measured block is applied through its chain matrices (twoport.ts), not the element kernel')
   }
   rescale(p)
 }
@@ -235,7 +239,7 @@ function applyStub(
 }
 
 /** Keeps each point's homogeneous pair in a safe range; the ratio a/b is unchanged. */
-function rescale(p: PointBuffer): void {
+export function rescale(p: PointBuffer): void {
   const { n, aRe, aIm, bRe, bIm } = p
   for (let i = 0; i < n; i++) {
     const m = Math.abs(aRe[i]!) + Math.abs(aIm[i]!) + Math.abs(bRe[i]!) + Math.abs(bIm[i]!)

@@ -7,7 +7,8 @@ import type { Complex, Element } from './types'
 import { RfInputError, describe, requirePositive } from './errors'
 import { OPEN, asComplex, divideInto } from './complex'
 import { validateElements } from './elements'
-import { applyElementToPoints, createPoints, setPoint, type PointBuffer } from './points'
+import { createPoints, setPoint, type PointBuffer } from './points'
+import { applyLadderElement, type BlockLookup } from './twoport'
 
 /** Arguments of `sweep`. `load` is one impedance for every frequency or one per frequency. */
 export type SweepInput = {
@@ -18,6 +19,8 @@ export type SweepInput = {
   readonly load: Complex | readonly Complex[]
   /** Ordered from the load towards the source; lines and stubs must carry fRef. */
   readonly elements: readonly Element[]
+  /** Measured data of the ladder's `block` elements, by upload id; never extrapolated. */
+  readonly blocks?: BlockLookup
 }
 
 /** Source-end impedances as two flat arrays (Ω); an open is re = Infinity, im = 0. */
@@ -56,7 +59,7 @@ export function sweepFlat(input: SweepInput): FlatImpedances {
   const elements = validateElements(input.elements, 'elements', { requireFRef: true })
   const n = frequencies.length
   const p = loadPoints(input.load, n)
-  for (const e of elements) applyElementToPoints(p, e, frequencies)
+  elements.forEach((e, i) => applyLadderElement(p, e, frequencies, input.blocks, `elements[${i}]`))
   const re = new Float64Array(n)
   const im = new Float64Array(n)
   const { aRe, aIm, bRe, bIm } = p

@@ -56,14 +56,24 @@ export type TransformerElement = {
   readonly ratio: number
 }
 
+/**
+ * A measured two-port (a .s2p upload) cascaded in the ladder, port 1 towards the source. Its data
+ * is not in the element: trace and sweep take it from a `blocks` lookup by `uploadId` (twoport.ts).
+ */
+export type BlockElement = {
+  readonly kind: 'block'
+  readonly uploadId: string
+  readonly name?: string
+}
+
 /** One element of a ladder: the element JSON shared by the board document, the REST API and the tests. */
-export type Element = LumpedElement | LineElement | StubElement | TransformerElement
+export type Element = LumpedElement | LineElement | StubElement | TransformerElement | BlockElement
 
 /** The `kind` field of an element. */
 export type ElementKind = Element['kind']
 
 /** Every element kind, for validation and menus. */
-export const ELEMENT_KINDS: readonly ElementKind[] = ['L', 'C', 'R', 'line', 'stub', 'xfmr']
+export const ELEMENT_KINDS: readonly ElementKind[] = ['L', 'C', 'R', 'line', 'stub', 'xfmr', 'block']
 
 /** The names of the E-series of IEC 60063 that the core knows. */
 export type ESeriesName = 'E12' | 'E24' | 'E48' | 'E96'
