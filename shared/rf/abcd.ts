@@ -1,0 +1,116 @@
+/**
+ * Chain (ABCD) matrices of ladder elements, taken from the shared point kernel (points.ts) rather
+ * than written out again, and the voltage and current they carry.
+ *
+ * Why this works: the kernel moves a homogeneous point (a, b) through an element as a 2×2 matrix,
+ * (a', b') = s·M·(a, b), where M is the element's ABCD matrix and s a non-zero scale the kernel
+ * is free to pick (it multiplies a stub's map by its cos or sin, and a transformer's by n). With
+ * (a, b) read as (V, I) at the load side, M gives (V, I) at the source side. Pushing the two unit
+ * columns (1, 0) and (0, 1) through the kernel gives s·M. For a series or shunt part (L, C, R,
+ * stub) M has D = 1, so s is the D entry. For a line (the kernel does not scale it) and a
+ * transformer (scaled by n > 0), det M = AD − BC = 1 and s = √det(s·M) on the principal branch.
+ *
+ * A part that blocks the signal outright (an open in series, a short across, e.g. a shunt open
+ * stub at exactly 90°) has a rank-one map (det 0): no finite ABCD matrix exists there. Such a
+ * frequency is flagged in `blocked`.
+ */
+import type { Element } from './types'
+import { applyElementToPoints, createPoints } from './points'
+
+/** ABCD matrices of one element at n frequencies, as flat arrays (A, B in Ω, C in S, D plain). */
+export type FlatAbcd = {
+  readonly n: number
+  readonly aRe: Float64Array; readonly aIm: Float64Array
+  readonly bRe: Float64Array; readonly bIm: Float64Array
+  readonly cRe: Float64Array; readonly cIm: Float64Array
+  readonly dRe: Float64Array; readonly dIm: Float64Array
+  /** 1 where the element blocks the signal (no finite ABCD matrix); the matrix there is zero. */
+  readonly blocked: Uint8Array
+}
+
+// A determinant this small against the entries' size is a blocking part, not rounding.
+const DET_FLOOR = 1e-24
+
+/**
+ * The ABCD matrix of a validated element at each of `frequenciesHz` (lines and stubs without fRef
+ * taken at their stated length), normalised to AD − BC = 1 up to a common sign.
+ */
+export function elementAbcdFlat(element: Element, frequenciesHz: ArrayLike<number>): FlatAbcd {
+  const n = frequenciesHz.length
+  const col1 = createPoints(n) // starts as shorts (0, 1): the second column
+  const col0 = createPoints(n)
+  col0.aRe.fill(1)
+  col0.bRe.fill(0) // opens (1, 0): the first column
+  applyElementToPoints(col0, element, frequenciesHz)
+  applyElementToPoints(col1, element, frequenciesHz)
+  const out: FlatAbcd = {
+    n,
+    aRe: new Float64Array(n), aIm: new Float64Array(n),
+    bRe: new Float64Array(n), bIm: new Float64Array(n),
+    cRe: new Float64Array(n), cIm: new Float64Array(n),
+    dRe: new Float64Array(n), dIm: new Float64Array(n),
+    blocked: new Uint8Array(n),
+  }
+  const isTwoTerminal = element.kind !== 'line' && element.kind !== 'xfmr'
+  for (let i = 0; i < n; i++) {
+    const ar = col0.aRe[i]!, ai = col0.aIm[i]!, cr = col0.bRe[i]!, ci = col0.bIm[i]!
+    const br = col1.aRe[i]!, bi = col1.aIm[i]!, dr = col1.bRe[i]!, di = col1.bIm[i]!
+    // det = A·D − B·C
+    const detRe = ar * dr - ai * di - (br * cr - bi * ci)
+    const detIm = ar * di + ai * dr - (br * ci + bi * cr)
+    const size = Math.max(Math.hypot(ar, ai) * Math.hypot(dr, di), Math.hypot(br, bi) * Math.hypot(cr, ci))
+    const detAbs = Math.hypot(detRe, detIm)
+    if (!(detAbs > DET_FLOOR * size) || !Number.isFinite(detAbs)) {
+      out.blocked[i] = 1
+      continue
+    }
+    let kRe: number
+    let kIm: number
+    if (isTwoTerminal) {
+      // Series [[1, Z], [0, 1]] and shunt [[1, 0], [Y, 1]] both have D = 1, so D is the scale:
+      // dividing by it keeps the sign right, which matters when V or I are differenced across a part.
+      const dd = dr * dr + di * di
+      kRe = dr / dd
+      kIm = -di / dd
+    } else {
+      // Lines (scale 1) and transformers (scale n > 0): 1/√det on the principal branch.
+      const rootAbs = Math.sqrt(detAbs)
+      const half = Math.atan2(detIm, detRe) / 2
+      kRe = Math.cos(half) / rootAbs
+      kIm = -Math.sin(half) / rootAbs
+    }
+    out.aRe[i] = ar * kRe - ai * kIm; out.aIm[i] = ar * kIm + ai * kRe
+    out.bRe[i] = br * kRe - bi * kIm; out.bIm[i] = br * kIm + bi * kRe
+    out.cRe[i] = cr * kRe - ci * kIm; out.cIm[i] = cr * kIm + ci * kRe
+    out.dRe[i] = dr * kRe - di * kIm; out.dIm[i] = dr * kIm + di * kRe
+  }
+  return out
+}
+
+/** Voltages (V) and currents (A) as phasors at n frequencies, on flat arrays. */
+export type FlatVI = {
+  readonly vRe: Float64Array; readonly vIm: Float64Array
+  readonly iRe: Float64Array; readonly iIm: Float64Array
+}
+
+/** A zeroed V, I buffer of n entries. */
+export function createVI(n: number): FlatVI {
+  return { vRe: new Float64Array(n), vIm: new Float64Array(n), iRe: new Float64Array(n), iIm: new Float64Array(n) }
+}
+
+/**
+ * Moves (V, I) at the load side of an element to its source side, in place: V' = A·V + B·I,
+ * I' = C·V + D·I. Blocked frequencies get V = I = 0.
+ */
+export function applyAbcd(vi: FlatVI, m: FlatAbcd): void {
+  const { vRe, vIm, iRe, iIm } = vi
+  for (let k = 0; k < m.n; k++) {
+    const vr = vRe[k]!, vi_ = vIm[k]!, ir = iRe[k]!, ii = iIm[k]!
+    const ar = m.aRe[k]!, ai = m.aIm[k]!, br = m.bRe[k]!, bi = m.bIm[k]!
+    const cr = m.cRe[k]!, ci = m.cIm[k]!, dr = m.dRe[k]!, di = m.dIm[k]!
+    vRe[k] = ar * vr - ai * vi_ + br * ir - bi * ii
+    vIm[k] = ar * vi_ + ai * vr + br * ii + bi * ir
+    iRe[k] = cr * vr - ci * vi_ + dr * ir - di * ii
+    iIm[k] = cr * vi_ + ci * vr + dr * ii + di * ir
+  }
+}
