@@ -184,7 +184,7 @@ export const useBoardStore = defineStore('board', () => {
   }
 
   /** Opens a board (from GET /api/boards/:id) as the document being edited. */
-  function openBoard(record: BoardRecordInput, options: { readOnly?: boolean } = {}) {
+  function openBoard(record: BoardRecordInput, options: { readOnly?: boolean, live?: boolean } = {}) {
     boardId.value = record.id
     name.value = record.name
     workspace.value = record.workspace ?? ''
@@ -193,7 +193,13 @@ export const useBoardStore = defineStore('board', () => {
     draft.value = null
     preview.value = null
     lastError.value = null
-    boardDoc.open({ settings: record.settings, elements: record.elements }, { applySnapshot, setHistory })
+    if (options.live) {
+      // The live provider fills an empty document by syncing with the server's copy; a document
+      // built from this JSON would duplicate every element on merge. Show the JSON meanwhile.
+      boardDoc.openState({ applySnapshot, setHistory })
+      applySnapshot({ settings: record.settings, elements: record.elements, problems: [] } as BoardSnapshot)
+    }
+    else boardDoc.open({ settings: record.settings, elements: record.elements }, { applySnapshot, setHistory })
     isLoaded.value = true
   }
   function closeBoard() {
