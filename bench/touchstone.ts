@@ -1,0 +1,47 @@
+// Touchstone reading and writing speed: a generated 100,000-line .s2p (MA, MHz), parsed and written
+// several times in this process; the median and the fastest run are reported (target: parse < 300 ms).
+import { pathToFileURL } from 'node:url'
+import { parseTouchstone, writeTouchstone } from '../shared/rf/touchstone'
+import { sampleS2p } from './touchstone-sample'
+
+export interface TouchstoneBenchResult {
+  rows: number
+  bytes: number
+  runs: number
+  parse: { medianMs: number, minMs: number }
+  write: { medianMs: number, minMs: number }
+}
+
+const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!
+
+function timeRuns(runs: number, work: () => void): { medianMs: number, minMs: number } {
+  const times: number[] = []
+  for (let run = 0; run < runs; run++) {
+    const start = performance.now()
+    work()
+    times.push(performance.now() - start)
+  }
+  return { medianMs: median(times), minMs: Math.min(...times) }
+}
+
+export function runTouchstoneBench(rows = 100_000, runs = 9): TouchstoneBenchResult {
+  const text = sampleS2p(rows)
+  const parse = timeRuns(runs, () => {
+    if (parseTouchstone(text, 'bench.s2p').frequencies.length !== rows) throw new Error('the sample did not read back whole')
+  })
+  const data = parseTouchstone(text, 'bench.s2p')
+  const write = timeRuns(runs, () => {
+    writeTouchstone({ ...data, format: 'MA', unit: 'MHZ' })
+  })
+  return { rows, bytes: text.length, runs, parse, write }
+}
+
+export function printTouchstoneBench(r: TouchstoneBenchResult): void {
+  const mb = (r.bytes / 1024 / 1024).toFixed(1)
+  console.log(`touchstone: parse ${r.rows.toLocaleString('en')}-line .s2p (${mb} MiB): median ${r.parse.medianMs.toFixed(1)} ms, fastest ${r.parse.minMs.toFixed(1)} ms over ${r.runs} runs (target < 300 ms)`)
+  console.log(`touchstone: write the same data (MA, MHz): median ${r.write.medianMs.toFixed(1)} ms, fastest ${r.write.minMs.toFixed(1)} ms`)
+}
+
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
+  printTouchstoneBench(runTouchstoneBench())
+}
