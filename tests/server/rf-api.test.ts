@@ -217,6 +217,24 @@ describe('POST /api/rf/touchstone', () => {
     const json = await post('touchstone', { file: '# MHz S RI R 50\n800 0.1 0.2\n' })
     expect(json.status).toBe(400)
     expect(json.body.message).toMatch(/multipart/)
+    const noBoundary = await fetch(`${baseUrl}/api/rf/touchstone`, { method: 'POST', headers: { 'content-type': 'multipart/form-data' }, body: 'x' })
+    expect(noBoundary.status).toBe(400)
+  })
+
+  it.each([
+    ['touchstone', 'multipart/form-data; boundary=x', 21 * MB],
+    ['sweep', 'application/json', 17 * MB],
+  ])('%s: answers 413 from a declared Content-Length before reading the body', async (route, contentType, bytes) => {
+    const status = await new Promise<number>((resolve, reject) => {
+      const req = request(`${baseUrl}/api/rf/${route}`, { method: 'POST', headers: { 'content-type': contentType, 'content-length': String(bytes) } }, (res) => {
+        res.resume()
+        resolve(res.statusCode!)
+        req.destroy()
+      })
+      req.on('error', reject)
+      req.flushHeaders() // headers only: the body never comes
+    })
+    expect(status).toBe(413)
   })
 
   it('answers 413 for a 21 MB upload', async () => {
