@@ -20,6 +20,8 @@ import { settingsPatchFor, terminalWithField, type SettingsField, type TerminalF
 import { matchSolutions } from '#shared/board/solutions'
 import { partRows } from '#shared/board/parts'
 import { useBoardDoc } from '~/composables/useBoardDoc'
+import { useMeasuredStore } from '~/stores/measured'
+import { measuredCoverage, measuredUploadIds, splitByCoverage } from '#shared/board/measured'
 
 export interface BoardRecordInput extends BoardContent {
   id: string
@@ -80,14 +82,27 @@ export const useBoardStore = defineStore('board', () => {
     return elements.value.map(e => e.id === d.elementId ? withFieldValue(e, mainFieldOf(e.kind), d.value) : e)
   })
 
-  const loadZ = computed<Complex>(() => terminalImpedance(settings.value.load, frequencyHz.value, z0.value))
-  const sourceZ = computed<Complex>(() => terminalImpedance(settings.value.source, frequencyHz.value, z0.value))
+  // ---- measured files (uploads): fetched into the measured store, never into the document ----
+  const measured = useMeasuredStore()
+  const measuredIds = computed(() => measuredUploadIds(settings.value, elements.value))
+  /** True while a measured file the board names is not loaded yet (results then leave it out). */
+  const isMeasuredPending = computed(() => measuredIds.value.some(id => !measured.files[id]))
+  /** The range all loaded measured files cover, or null without any. */
+  const measuredRange = computed(() => measuredCoverage(measuredIds.value, measured.files))
+  /** Blocks whose data has not arrived yet are left out until it does (isMeasuredPending says so). */
+  function computable<E extends ElementJson>(ladder: readonly E[]): E[] {
+    return ladder.filter(e => e.kind !== 'block' || measured.files[e.uploadId] !== undefined)
+  }
+
+  const loadZ = computed<Complex>(() => terminalImpedance(settings.value.load, frequencyHz.value, z0.value, measured.files))
+  const sourceZ = computed<Complex>(() => terminalImpedance(settings.value.source, frequencyHz.value, z0.value, measured.files))
   const goal = computed<Complex>(() => goalOf(sourceZ.value))
   /** Γ of the end point is taken against this: z0 for a Z0 source, else the source impedance. */
   const reference = computed(() => reflectionReference(sourceZ.value, settings.value))
 
   function traceOf(ladder: readonly ElementJson[]): Complex[] {
-    return trace({ z0: z0.value, frequency: frequencyHz.value, load: loadZ.value, elements: ladder })
+    // A design frequency outside a block's file takes its nearest measured point (flagged in the UI).
+    return trace({ z0: z0.value, frequency: frequencyHz.value, load: loadZ.value, elements: computable(ladder), blocks: measured.files, blockRange: 'nearest' })
   }
 
   /** Impedances (Ω) after 0…n elements at the design frequency, draft applied; [0] is the load. */
@@ -97,20 +112,26 @@ export const useBoardStore = defineStore('board', () => {
   /** The end point as Γ against z0: its position on the chart. */
   const endpointChartGamma = computed(() => gammaOf(endPoint.value, z0.value))
 
-  const bandFrequencies = computed(() => bandGrid(settings.value))
-  const bandLoadZ = computed(() => terminalImpedances(settings.value.load, bandFrequencies.value, z0.value))
+  /** The band grid split by the measured range: only points inside it are computed (no extrapolation). */
+  const bandCoverage = computed(() => splitByCoverage(bandGrid(settings.value), measuredRange.value))
+  const bandFrequencies = computed(() => bandCoverage.value.insideHz)
+  /** Band points beyond the measured files' range, left out of every band result. */
+  const bandOutsideHz = computed(() => bandCoverage.value.outsideHz)
+  const bandLoadZ = computed(() => terminalImpedances(settings.value.load, bandFrequencies.value, z0.value, measured.files))
   const bandReferences = computed<(number | Complex)[]>(() => {
     if (settings.value.source.kind === 'z0') return bandFrequencies.value.map(() => z0.value)
-    return terminalImpedances(settings.value.source, bandFrequencies.value, z0.value)
+    return terminalImpedances(settings.value.source, bandFrequencies.value, z0.value, measured.files)
       .map(zs => reflectionReference(zs, settings.value))
   })
 
   function sweepOf(ladder: readonly ElementJson[]): Complex[] {
+    if (bandFrequencies.value.length === 0) return []
     return sweep({
+      blocks: measured.files,
       z0: z0.value,
       frequencies: bandFrequencies.value,
       load: bandLoadZ.value,
-      elements: withReferenceFrequency(ladder, frequencyHz.value),
+      elements: withReferenceFrequency(computable(ladder), frequencyHz.value),
     })
   }
   function gammaAcrossBand(impedances: readonly Complex[]): Complex[] {
@@ -360,6 +381,7 @@ export const useBoardStore = defineStore('board', () => {
     // computed
     z0, frequencyHz, effectiveElements, loadZ, sourceZ, goal, reference,
     traceAtDesign, endPoint, endpointReadout, endpointChartGamma,
+    measuredIds, isMeasuredPending, measuredRange, bandOutsideHz,
     bandFrequencies, bandLoadZ, bandSweep, bandGamma, bandReturnLossDb, bandVerdict,
     partsSeries, snappedElements, snappedBandGamma, snappedBandReturnLossDb, snappedBandVerdict, partsList, bandPlot,
     solutions, solveNotes, previewTrace,

@@ -87,8 +87,9 @@ export function parseFieldValue(kind: ElementKind, field: EditField, text: strin
 }
 
 /** A short name of the element for tiles and tables: "series L", "shunt open stub", "line". */
-export function elementLabel(element: Pick<BoardElement, 'kind'> & { placement?: string, end?: string }): string {
+export function elementLabel(element: Pick<BoardElement, 'kind'> & { placement?: string, end?: string, name?: string }): string {
   switch (element.kind) {
+    case 'block': return `measured ${element.name || 'block'}`
     case 'line': return 'line'
     case 'xfmr': return 'transformer'
     case 'stub': return `${element.placement} ${element.end} stub`

@@ -35,6 +35,9 @@ export const StubElementSchema = z.object({
   fRef: frequencyHz.optional(),
 })
 export const TransformerElementSchema = z.object({ kind: z.literal('xfmr'), ratio: positive })
+const uploadId = z.string().min(1).max(100)
+/** A measured two-port (a .s2p upload) in the ladder; its data is fetched by uploadId, never stored here. */
+export const BlockElementSchema = z.object({ kind: z.literal('block'), uploadId, name: z.string().max(255) })
 
 /** The element JSON shared by the Y.Doc, the REST API and the RF core (no id). */
 export const ElementSchema = z.discriminatedUnion('kind', [
@@ -42,6 +45,7 @@ export const ElementSchema = z.discriminatedUnion('kind', [
   LineElementSchema,
   StubElementSchema,
   TransformerElementSchema,
+  BlockElementSchema,
 ])
 export type ElementJson = z.infer<typeof ElementSchema>
 
@@ -51,6 +55,7 @@ export const BoardElementSchema = z.discriminatedUnion('kind', [
   LineElementSchema.extend(elementIdentity),
   StubElementSchema.extend(elementIdentity),
   TransformerElementSchema.extend(elementIdentity),
+  BlockElementSchema.extend(elementIdentity),
 ])
 /** An element of the ladder as stored: the element JSON plus its id and lock flag. */
 export type BoardElement = z.infer<typeof BoardElementSchema>
@@ -70,11 +75,13 @@ export const RlcTerminalSchema = z.object({
   c: positive.optional(),
 }).refine(t => t.r !== undefined || t.l !== undefined || t.c !== undefined, 'needs at least one of r, l, c')
 export const Z0TerminalSchema = z.object({ kind: z.literal('z0') })
+/** A measured one-port (a .s1p upload): the impedance across frequency comes from its S11. */
+export const MeasuredTerminalSchema = z.object({ kind: z.literal('measured'), uploadId })
 
-/** A load: a fixed impedance or an R-L-C model. */
-export const LoadTerminalSchema = z.union([ImpedanceTerminalSchema, RlcTerminalSchema])
+/** A load: a fixed impedance, an R-L-C model or a measured file. */
+export const LoadTerminalSchema = z.union([ImpedanceTerminalSchema, RlcTerminalSchema, MeasuredTerminalSchema])
 /** Any terminal; a source may also be `{ kind: 'z0' }`, a matched source of the board's Z0. */
-export const TerminalSchema = z.union([ImpedanceTerminalSchema, RlcTerminalSchema, Z0TerminalSchema])
+export const TerminalSchema = z.union([ImpedanceTerminalSchema, RlcTerminalSchema, Z0TerminalSchema, MeasuredTerminalSchema])
 export type Terminal = z.infer<typeof TerminalSchema>
 export type LoadTerminal = z.infer<typeof LoadTerminalSchema>
 export type TerminalSide = 'load' | 'source'
