@@ -16,6 +16,7 @@
  */
 import type { Element } from './types'
 import { applyElementToPoints, createPoints } from './points'
+import { blockAbcd, type BlockLookup } from './twoport'
 
 /** ABCD matrices of one element at n frequencies, as flat arrays (A, B in Ω, C in S, D plain). */
 export type FlatAbcd = {
@@ -31,19 +32,8 @@ export type FlatAbcd = {
 // A determinant this small against the entries' size is a blocking part, not rounding.
 const DET_FLOOR = 1e-24
 
-/**
- * The ABCD matrix of a validated element at each of `frequenciesHz` (lines and stubs without fRef
- * taken at their stated length), normalised to AD − BC = 1 up to a common sign.
- */
-export function elementAbcdFlat(element: Element, frequenciesHz: ArrayLike<number>): FlatAbcd {
-  const n = frequenciesHz.length
-  const col1 = createPoints(n) // starts as shorts (0, 1): the second column
-  const col0 = createPoints(n)
-  col0.aRe.fill(1)
-  col0.bRe.fill(0) // opens (1, 0): the first column
-  applyElementToPoints(col0, element, frequenciesHz)
-  applyElementToPoints(col1, element, frequenciesHz)
-  const out: FlatAbcd = {
+function emptyAbcd(n: number): FlatAbcd {
+  return {
     n,
     aRe: new Float64Array(n), aIm: new Float64Array(n),
     bRe: new Float64Array(n), bIm: new Float64Array(n),
@@ -51,6 +41,33 @@ export function elementAbcdFlat(element: Element, frequenciesHz: ArrayLike<numbe
     dRe: new Float64Array(n), dIm: new Float64Array(n),
     blocked: new Uint8Array(n),
   }
+}
+
+/** A measured block's chain matrices (twoport.ts `blockAbcd`, interpolated from its S) as flat arrays. */
+function measuredAbcdFlat(element: Extract<Element, { kind: 'block' }>, frequenciesHz: ArrayLike<number>, blocks: BlockLookup | undefined, path: string): FlatAbcd {
+  const out = emptyAbcd(frequenciesHz.length)
+  blockAbcd(element, blocks, frequenciesHz, { path }).forEach((m, k) => {
+    out.aRe[k] = m.a.re; out.aIm[k] = m.a.im; out.bRe[k] = m.b.re; out.bIm[k] = m.b.im
+    out.cRe[k] = m.c.re; out.cIm[k] = m.c.im; out.dRe[k] = m.d.re; out.dIm[k] = m.d.im
+  })
+  return out
+}
+
+/**
+ * The ABCD matrix of a validated element at each of `frequenciesHz` (lines and stubs without fRef
+ * taken at their stated length). A measured block takes its matrices from `blocks` (twoport.ts);
+ * `path` names the element in errors.
+ */
+export function elementAbcdFlat(element: Element, frequenciesHz: ArrayLike<number>, blocks?: BlockLookup, path = 'element'): FlatAbcd {
+  if (element.kind === 'block') return measuredAbcdFlat(element, frequenciesHz, blocks, path)
+  const n = frequenciesHz.length
+  const col1 = createPoints(n) // starts as shorts (0, 1): the second column
+  const col0 = createPoints(n)
+  col0.aRe.fill(1)
+  col0.bRe.fill(0) // opens (1, 0): the first column
+  applyElementToPoints(col0, element, frequenciesHz)
+  applyElementToPoints(col1, element, frequenciesHz)
+  const out = emptyAbcd(n)
   const isTwoTerminal = element.kind !== 'line' && element.kind !== 'xfmr'
   for (let i = 0; i < n; i++) {
     const ar = col0.aRe[i]!, ai = col0.aIm[i]!, cr = col0.bRe[i]!, ci = col0.bIm[i]!

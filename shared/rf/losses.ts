@@ -14,6 +14,7 @@ import { RfInputError, describe, requirePositive } from './errors'
 import { requireFrequency, validateElements } from './elements'
 import { deliveredPowerFraction, gammaOf } from './gamma'
 import { applyAbcd, createVI, elementAbcdFlat, type FlatVI } from './abcd'
+import type { BlockLookup } from './twoport'
 
 /** Quality factors used for L and C parts that carry no `q` of their own. */
 export type DefaultQ = { readonly L?: number; readonly C?: number }
@@ -39,6 +40,8 @@ export type LossInput = {
   readonly source: Complex | readonly Complex[]
   /** From the load towards the source; finite Q through each part's `q` (see `withDefaultQ`). */
   readonly elements: readonly Element[]
+  /** Measured two-port data for `block` elements, by upload id. */
+  readonly blocks?: BlockLookup
 }
 
 /** Loss figures per frequency, `[k]` at `frequencies[k]`. */
@@ -100,7 +103,7 @@ export function lossesAcrossBand(input: LossInput): LossResult {
   const vi = loadVI(loads)
   const loadPower = new Float64Array(n)
   for (let k = 0; k < n; k++) loadPower[k] = vi.vRe[k]! * vi.iRe[k]! + vi.vIm[k]! * vi.iIm[k]!
-  for (const e of elements) applyAbcd(vi, elementAbcdFlat(e, f))
+  elements.forEach((e, i) => applyAbcd(vi, elementAbcdFlat(e, f, input.blocks, `elements[${i}]`)))
   const out = {
     efficiency: new Float64Array(n),
     dissipativeLossDb: new Float64Array(n),
@@ -133,6 +136,7 @@ export type LossAtInput = {
   readonly load: Complex
   readonly source: Complex
   readonly elements: readonly Element[]
+  readonly blocks?: BlockLookup
 }
 
 /** Loss figures at one frequency (lines and stubs without fRef taken at their stated length). */
@@ -140,7 +144,7 @@ export function lossesAt(input: LossAtInput): {
   efficiency: number; dissipativeLossDb: number; mismatchLossDb: number; insertionLossDb: number
 } {
   const frequency = requireFrequency(input?.frequency, 'frequency')
-  const r = lossesAcrossBand({ frequencies: [frequency], load: input.load, source: input.source, elements: input.elements })
+  const r = lossesAcrossBand({ frequencies: [frequency], load: input.load, source: input.source, elements: input.elements, blocks: input.blocks })
   return {
     efficiency: r.efficiency[0]!,
     dissipativeLossDb: r.dissipativeLossDb[0]!,

@@ -12,7 +12,7 @@
  * obeys V_in = Vs − Zs·I_in. For each element:
  * - series L, C, R or stub: I through = the branch current; V across = V(source side) − V(load side);
  * - shunt L, C, R or stub: V across = the node voltage; I through = I(source side) − I(load side);
- * - line and transformer: the larger of the two end values of V and of I. On a mismatched line
+ * - line, transformer and measured block: the larger of the two end values of V and of I. On a mismatched line
  *   the standing wave can peak between the ends, above both; a line's figures are therefore a
  *   lower bound of its peak.
  * - a stub also counts its far end: the open end's voltage, the short end's current (the larger
@@ -25,6 +25,7 @@ import { RfInputError, requirePositive } from './errors'
 import { requireFrequency, validateElements } from './elements'
 import { applyAbcd, createVI, elementAbcdFlat } from './abcd'
 import { loadVI } from './losses'
+import type { BlockLookup } from './twoport'
 
 /** An element with optional ratings (RMS): maximum voltage across (V) and current through (A). */
 export type RatedElement = Element & { readonly vRatingV?: number; readonly iRatingA?: number }
@@ -38,6 +39,8 @@ export type StressInput = {
   /** The source's available power (W); see the file comment. */
   readonly powerW: number
   readonly elements: readonly RatedElement[]
+  /** Measured two-port data for `block` elements, by upload id. */
+  readonly blocks?: BlockLookup
 }
 
 /** The stress on one element, `index` as in the ladder (0 next to the load). */
@@ -118,7 +121,7 @@ export function elementStress(input: StressInput): StressResult {
   const before = createVI(1)
   elements.forEach((e, index) => {
     before.vRe[0] = vi.vRe[0]!; before.vIm[0] = vi.vIm[0]!; before.iRe[0] = vi.iRe[0]!; before.iIm[0] = vi.iIm[0]!
-    const m = elementAbcdFlat(e, [f])
+    const m = elementAbcdFlat(e, [f], input.blocks, `elements[${index}]`)
     if (m.blocked[0]) throw new RfInputError(`elements[${index}]`, `blocks the signal at ${f} Hz (an open in series or a short across); stress is undefined there`)
     applyAbcd(vi, m)
     const v0: [number, number] = [before.vRe[0]!, before.vIm[0]!]
@@ -127,7 +130,7 @@ export function elementStress(input: StressInput): StressResult {
     const i1: [number, number] = [vi.iRe[0]!, vi.iIm[0]!]
     // Power into the element's two ports: what it dissipates (zero for lossless kinds, up to rounding).
     const p = Math.max(0, v1[0] * i1[0] + v1[1] * i1[1] - (v0[0] * i0[0] + v0[1] * i0[1]))
-    if (e.kind === 'line' || e.kind === 'xfmr') {
+    if (e.kind === 'line' || e.kind === 'xfmr' || e.kind === 'block') {
       raw.push({ v: Math.max(magnitude(...v0), magnitude(...v1)), i: Math.max(magnitude(...i0), magnitude(...i1)), p: 0 })
       return
     }

@@ -71,6 +71,16 @@ describe('losses: definitions and edge cases', () => {
     expectRealClose(r.efficiency, 50 / 60, 'efficiency')
   })
 
+  it('a measured block (the S of a series 10 Ω at 50 Ω: S11 = 10/110, S21 = 100/110) loses like the resistor', () => {
+    const s11 = { re: 10 / 110, im: 0 }
+    const s21 = { re: 100 / 110, im: 0 }
+    const s = [[s11, s21], [s21, s11]]
+    const blocks = { up1: { z0: 50, frequencies: [0.5e9, 2e9], s: [s, s] } }
+    const r = lossesAt({ frequency: 1e9, load, source, elements: [{ kind: 'block', uploadId: 'up1' }], blocks })
+    expectRealClose(r.efficiency, 50 / 60, 'efficiency')
+    expect(() => lossesAt({ frequency: 1e9, load, source, elements: [{ kind: 'block', uploadId: 'missing' }], blocks })).toThrow(/elements\[0\]/)
+  })
+
   it('default Q applies only to L and C parts without their own q', () => {
     const ladder: Element[] = [
       { kind: 'L', placement: 'series', value: 1e-9 },
