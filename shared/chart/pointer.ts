@@ -1,0 +1,59 @@
+/**
+ * What the pointer is over: the nearest handle within reach, and the readout at the pointer.
+ */
+import type { Complex } from '../rf/types'
+import { impedanceOf } from '../rf/gamma'
+import { formatEng } from '../rf/units'
+import { readoutOf } from '../board/readout'
+import type { ScreenPoint } from './viewport'
+
+/** How far from a handle's centre a press still grabs it (px): a comfortable finger-free target. */
+export const HANDLE_REACH_PX = 11
+
+/** The id of the handle nearest to (x, y) within `reachPx`, or null. */
+export function handleAt<H extends ScreenPoint & { id: string }>(handles: readonly H[], x: number, y: number, reachPx = HANDLE_REACH_PX): string | null {
+  let best: string | null = null
+  let bestDistance = reachPx
+  for (const h of handles) {
+    const d = Math.hypot(h.x - x, h.y - y)
+    if (d <= bestDistance) {
+      best = h.id
+      bestDistance = d
+    }
+  }
+  return best
+}
+
+export interface ReadoutRow {
+  readonly label: string
+  readonly text: string
+}
+
+function complexText(z: Complex, unit: string): string {
+  if (!Number.isFinite(z.re) || !Number.isFinite(z.im)) return `∞ ${unit}`
+  const sign = z.im < 0 ? '−' : '+'
+  return `${formatEng(z.re, unit)} ${sign} j${formatEng(Math.abs(z.im), unit)}`
+}
+
+function figure(value: number, digits: number, unit = ''): string {
+  if (!Number.isFinite(value)) return value > 0 ? `∞${unit}` : '—'
+  return `${value.toFixed(digits)}${unit}`
+}
+
+/**
+ * The cursor readout at a point of the chart (Γ against z0): Z, Y, |Γ|∠, VSWR, return loss.
+ * Outside the rim (|Γ| > 1, an active impedance) VSWR and return loss have no meaning and read "—".
+ */
+export function cursorReadout(gamma: Complex, z0: number): ReadoutRow[] {
+  const magnitude = Math.hypot(gamma.re, gamma.im)
+  const z = impedanceOf(gamma, z0)
+  const r = readoutOf(z, z0)
+  const isPassive = magnitude <= 1
+  return [
+    { label: 'Z', text: complexText(r.z, 'Ω') },
+    { label: 'Y', text: complexText(r.y, 'S') },
+    { label: 'Γ', text: `${magnitude.toFixed(3)} ∠ ${r.gammaAngleDeg.toFixed(1)}°` },
+    { label: 'VSWR', text: isPassive ? figure(r.vswr, 2) : '—' },
+    { label: 'Return loss', text: isPassive ? figure(r.returnLossDb, 1, ' dB') : '—' },
+  ]
+}
