@@ -9,6 +9,7 @@ import { readBoard } from '../shared/board/ydoc'
 import { startServer } from '../tests/support/server'
 import { DEMO_USERS, signIn } from '../tests/support/auth'
 import { connectLive, waitUntil, whenSynced, type LiveClient } from '../tests/support/live-client'
+import { createBoard } from '../tests/live/helpers'
 
 export interface LiveBenchResult {
   latency: { clients: number, updates: number, medianMs: number, p95Ms: number, maxMs: number }
@@ -22,16 +23,6 @@ function rssKiB(pid: number): number {
   const match = /^VmRSS:\s+(\d+) kB/m.exec(status)
   if (!match) throw new Error('no VmRSS in /proc status')
   return Number(match[1])
-}
-
-async function createBoard(baseUrl: string, cookie: string, name: string): Promise<string> {
-  const res = await fetch(`${baseUrl}/api/boards`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json', cookie },
-    body: JSON.stringify({ workspace: 'kestrel', name }),
-  })
-  if (res.status !== 201) throw new Error(`creating a board failed: ${res.status}`)
-  return (await res.json() as { id: string }).id
 }
 
 async function measureLatency(baseUrl: string, cookie: string, clients = 10, updates = 1000) {

@@ -1,7 +1,8 @@
 // Two Chromium pages on one board over the built server: a typed edit and a chart drag in one show in the other,
 // presence avatars show who is there, and a reviewer's page says it is read-only.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { chromium, type Browser, type Page } from 'playwright-core'
+import type { Browser, Page } from 'playwright-core'
+import { launchChromium } from '../support/browser'
 import { mkdirSync } from 'node:fs'
 import { DEMO_USERS, signIn, signInPage } from '../support/auth'
 import { connectLive, waitUntil, whenSynced } from '../support/live-client'
@@ -15,12 +16,7 @@ let browser: Browser
 
 beforeAll(async () => {
   mkdirSync(ARTIFACTS, { recursive: true })
-  browser = await chromium.launch({
-    executablePath: '/usr/bin/chromium',
-    headless: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
-      '--disable-component-update', '--disable-sync'],
-  })
+  browser = await launchChromium()
 })
 afterAll(async () => { await browser?.close() })
 
