@@ -13,11 +13,15 @@ export function formatComplex(z: Complex, unit: string, digits = 4): string {
   return `${z.re < 0 ? '−' : ''}${part(z.re)} ${sign} j${part(z.im)} ${unit}`.trim()
 }
 
-/** A decibel figure with one decimal; a perfect match is "∞ dB". */
+// Beyond this a return loss is rounding noise of an exact match, not a figure worth reading.
+const DB_CEILING = 100
+
+/** A decibel figure: one decimal, two below 1 dB; an exact match shows as "> 100 dB". */
 export function formatDb(db: number | null): string {
   if (db === null || Number.isNaN(db)) return '—'
-  if (!Number.isFinite(db)) return db > 0 ? '∞ dB' : '−∞ dB'
-  return `${db.toFixed(1)} dB`
+  if (db > DB_CEILING) return `> ${DB_CEILING} dB`
+  if (!Number.isFinite(db)) return '−∞ dB'
+  return `${db.toFixed(Math.abs(db) < 1 ? 2 : 1)} dB`
 }
 
 /** A plain figure to a few significant digits; infinity as "∞". */

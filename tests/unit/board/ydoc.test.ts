@@ -101,7 +101,7 @@ describe('readBoard reports bad entries in problems without throwing', () => {
   })
 
   it('never throws on an unknown terminal kind', () => {
-    const doc = docWith(d => boardMap(d).set('load', { kind: 'measured', uploadId: 'u1' }))
+    const doc = docWith(d => boardMap(d).set('load', { kind: 'hologram', sizeMm: 3 }))
     const snapshot = readBoard(doc)
     expect(snapshot.settings.load).toEqual(DEFAULT_SETTINGS.load)
     expect(snapshot.problems[0]).toMatch(/settings\.load is invalid/)
