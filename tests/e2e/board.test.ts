@@ -1,9 +1,10 @@
 // The board page in Chromium: typed values, ladder edits, undo/redo by keyboard, a solver result.
 // Screenshots land in tests/artifacts/ for a person to look at.
 import { afterAll, beforeAll, beforeEach, describe, expect, inject, it } from 'vitest'
-import { chromium, type Browser, type Page } from 'playwright-core'
+import type { Browser, Page } from 'playwright-core'
 import { mkdirSync } from 'node:fs'
 import { DEMO_USERS, signIn, signInPage } from '../support/auth'
+import { launchChromium } from '../support/browser'
 
 const baseUrl = inject('baseUrl')
 const ARTIFACTS = 'tests/artifacts'
@@ -49,12 +50,7 @@ beforeAll(async () => {
   cookie = await signIn(baseUrl, DEMO_USERS.designer.email, DEMO_USERS.designer.password)
   const templates = await (await fetch(`${baseUrl}/api/workspaces/kestrel/templates`, { headers: { cookie } })).json()
   templateId = templates.find((t: { name: string }) => t.name === TEMPLATE_NAME).id
-  browser = await chromium.launch({
-    executablePath: '/usr/bin/chromium',
-    headless: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
-      '--disable-component-update', '--disable-sync'],
-  })
+  browser = await launchChromium()
 })
 afterAll(async () => { await browser?.close() })
 
@@ -73,6 +69,15 @@ describe('the board page', () => {
     await page.locator('[data-testid="band-plot"] canvas').waitFor()
     expect(await page.locator('[data-testid="parts-table"] tbody tr').count()).toBe(2)
     await page.screenshot({ path: `${ARTIFACTS}/board-915.png` })
+    // The parts list downloads as CSV: a header and one row per part.
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.locator('[data-testid="parts-csv"]').click(),
+    ])
+    const { readFileSync } = await import('node:fs')
+    const csv = readFileSync((await download.path())!, 'utf8').trim().split('\n')
+    expect(csv[0]).toMatch(/^position,element,exact,/)
+    expect(csv.slice(1).map(line => line.split(',').slice(0, 3).join(','))).toEqual(['1,series L,10 nH', '2,shunt C,3.9 pF'])
   })
 
   it('refuses a bad typed value with a message and leaves the value unchanged', async () => {
@@ -120,6 +125,19 @@ describe('the board page', () => {
     }
     await page.mouse.up()
     await expect.poll(tileIds).toEqual([ids[3], ids[0], ids[1], ids[2]])
+
+    // Lock it, then unlock it with the K key.
+    const lock = page.locator(`[data-element-id="${ids[3]}"] [data-testid="tile-lock"]`)
+    await lock.click()
+    await expect.poll(() => page.locator(`[data-element-id="${ids[3]}"]`).getAttribute('data-locked')).toBe('true')
+    await page.locator('body').click({ position: { x: 5, y: 300 } })
+    await page.locator(`[data-element-id="${ids[3]}"] [data-drag-handle]`).click()
+    await page.keyboard.press('k')
+    await expect.poll(() => page.locator(`[data-element-id="${ids[3]}"]`).getAttribute('data-locked')).toBe('false')
+    await page.keyboard.press('Control+z')
+    await page.keyboard.press('Control+z')
+    await expect.poll(tileIds).toEqual([ids[3], ids[0], ids[1], ids[2]])
+    expect(await page.locator(`[data-element-id="${ids[3]}"]`).getAttribute('data-locked')).toBe('false')
 
     // Delete the moved tile with its button.
     await page.locator(`[data-element-id="${ids[3]}"] [data-testid="tile-delete"]`).click()
