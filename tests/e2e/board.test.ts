@@ -179,4 +179,11 @@ describe('the board page', () => {
     await page.locator('[data-testid="terminal-editor-load"]').waitFor()
     await page.screenshot({ path: `${ARTIFACTS}/board-lna-terminal.png` })
   })
+
+  it('says so when a board does not exist', async () => {
+    await page.goto(`${baseUrl}/boards/no-such-board`)
+    const message = page.locator('[data-testid="board-load-error"]')
+    await message.waitFor()
+    expect(await message.textContent()).toMatch(/no board at this address/)
+  })
 })
