@@ -2,7 +2,7 @@
 // the board's measured data covers, and the band points that fall outside it (shown to the user,
 // never extrapolated).
 import {
-  impedanceOf, interpolateComplex, isInRange, rangeOf,
+  gammaOf, impedanceOf, interpolateComplex, isInRange, rangeOf,
   type BlockLookup, type Complex, type FrequencyRange, type TwoPortData,
 } from '../rf'
 import type { BoardElement, BoardSettings } from './schema'
@@ -71,4 +71,11 @@ export function measuredImpedanceAt(data: TwoPortData | undefined, frequencyHz: 
 /** The measured points themselves as impedances (Ω), for the chart's dotted trace. */
 export function measuredPoints(data: TwoPortData): { frequenciesHz: readonly number[], impedances: Complex[] } {
   return { frequenciesHz: data.frequencies, impedances: data.s.map(m => impedanceFromS11(m[0]![0]!, data.z0)) }
+}
+
+/** The measured load's points as Γ against the chart's z0, or [] when the load is not measured or not loaded. */
+export function measuredLoadGammas(load: BoardSettings['load'], files: MeasuredLookup, z0: number): Complex[] {
+  if (load.kind !== 'measured') return []
+  const data = files[load.uploadId]
+  return data ? measuredPoints(data).impedances.map(z => gammaOf(z, z0)) : []
 }
