@@ -1,8 +1,11 @@
 // Request bodies of the RF computation routes: the arguments of the shared/rf functions as JSON.
-// Element JSON and {re, im} come from the board schema, so the API accepts exactly what a board
-// holds. Sizes are capped so one request cannot tie up the server.
+// Element JSON and {re, im} come from the board schema, so the API accepts what a board holds,
+// less measured blocks (their data lives in uploads, which these public routes do not read).
+// Sizes are capped so one request cannot tie up the server.
 import { z } from 'zod'
-import { ComplexSchema, ElementSchema } from '../../shared/board/schema'
+import {
+  ComplexSchema, LineElementSchema, LumpedElementSchema, StubElementSchema, TransformerElementSchema,
+} from '../../shared/board/schema'
 
 /** Most elements in one ladder. */
 export const RF_MAX_ELEMENTS = 200
@@ -25,7 +28,9 @@ const ImpedanceBodySchema = z.union([
 /** A complex argument that may also be given as a real number. */
 const ComplexOrRealSchema = z.union([ComplexSchema, z.number()], { error: 'must be { re, im } or a number' })
 
-const ElementsBodySchema = z.array(ElementSchema).max(RF_MAX_ELEMENTS, `at most ${RF_MAX_ELEMENTS} elements`)
+/** The element JSON the RF core computes with: L, C, R, line, stub, xfmr. */
+const RfElementSchema = z.discriminatedUnion('kind', [LumpedElementSchema, LineElementSchema, StubElementSchema, TransformerElementSchema])
+const ElementsBodySchema = z.array(RfElementSchema).max(RF_MAX_ELEMENTS, `at most ${RF_MAX_ELEMENTS} elements`)
 
 export const TraceBodySchema = z.object({
   z0: positiveNumber,

@@ -108,6 +108,7 @@ describe('POST /api/rf/*: bad input is a 400 naming the field', () => {
     ['trace', 'negative Z0', { ...trace0, z0: -50 }, 'z0'],
     ['trace', 'negative capacitance', { ...trace0, elements: [{ kind: 'C', placement: 'shunt', value: -1e-12 }] }, 'elements.0.value'],
     ['trace', 'unknown element kind', { ...trace0, elements: [{ kind: 'diode', placement: 'shunt', value: 1 }] }, 'elements.0.kind'],
+    ['trace', 'a measured block (needs an upload)', { ...trace0, elements: [{ kind: 'block', uploadId: 'u1', name: 'filter' }] }, 'elements.0.kind'],
     ['trace', 'elements not an array', { ...trace0, elements: 'L' }, 'elements'],
     ['trace', '201 elements', { ...trace0, elements: Array.from({ length: 201 }, () => LADDER[1]) }, 'elements'],
     ['sweep', 'a line without fRef (from the RF core)', { z0: 50, frequencies: [9e8, 9.1e8], load: ANTENNA, elements: [{ kind: 'line', z0: 50, deg: 30 }] }, 'elements[0].fRef'],
