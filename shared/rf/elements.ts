@@ -122,7 +122,7 @@ export function elementImpedance(element: Element, frequencyHz: number): Complex
   const f = requireFrequency(frequencyHz, 'frequencyHz')
   const p = createPoints(1)
   setPoint(p, 0, SHORT)
-  applyElementToPoints(p, { ...part, placement: 'series' } as Element, [f])
+  applyElementToPoints(p, { ...part, placement: 'series' } as Element, Float64Array.of(f))
   return readImpedance(p, 0)
 }
 
@@ -136,7 +136,7 @@ export function elementAdmittance(element: Element, frequencyHz: number): Comple
   const f = requireFrequency(frequencyHz, 'frequencyHz')
   const p = createPoints(1)
   setPoint(p, 0, OPEN)
-  applyElementToPoints(p, { ...part, placement: 'shunt' } as Element, [f])
+  applyElementToPoints(p, { ...part, placement: 'shunt' } as Element, Float64Array.of(f))
   return readAdmittance(p, 0)
 }
 
@@ -154,6 +154,6 @@ export function applyElement(z: Complex, element: Element, frequencyHz: number):
   const f = requireFrequency(frequencyHz, 'frequencyHz')
   const p = createPoints(1)
   setPoint(p, 0, start)
-  applyElementToPoints(p, e, [f])
+  applyElementToPoints(p, e, Float64Array.of(f))
   return readImpedance(p, 0)
 }

@@ -37,7 +37,7 @@ export function trace(input: TraceInput): Complex[] {
   const elements = validateElements(input.elements, 'elements')
   const p = createPoints(1)
   setPoint(p, 0, load)
-  const freq = [f]
+  const freq = Float64Array.of(f)
   const out: Complex[] = [load]
   for (const [i, e] of elements.entries()) {
     applyLadderElement(p, e, freq, input.blocks, `elements[${i}]`, input.blockRange)

@@ -16,6 +16,34 @@
  */
 import type { Complex, Element } from './types'
 import { divideParts, isInfinite } from './complex'
+import { electricalCosSin } from './angles'
+
+/** How `applyElementToPoints` may work: see `isUniformGrid` (angles.ts) and `rescale`. */
+export type StepOptions = {
+  /** The frequencies are evenly spaced (allows the rotation recurrence for line angles). */
+  readonly uniformGrid?: boolean
+  /** Rescale the homogeneous pairs afterwards (default true; a sweep does it every few elements). */
+  readonly rescale?: boolean
+}
+
+// Scratch arrays for line and stub angles, reused (the kernel is synchronous).
+let cosScratch = new Float64Array(0)
+let sinScratch = new Float64Array(0)
+
+/** The frequencies as a Float64Array (copied only when given as another array type). */
+export function asFloat64(values: ArrayLike<number>): Float64Array {
+  return values instanceof Float64Array ? values : Float64Array.from(values)
+}
+
+function anglesFor(deg: number, fRef: number | undefined, frequenciesHz: Float64Array, uniform: boolean) {
+  const n = frequenciesHz.length
+  if (cosScratch.length < n) {
+    cosScratch = new Float64Array(n)
+    sinScratch = new Float64Array(n)
+  }
+  electricalCosSin(deg, fRef, frequenciesHz, uniform, cosScratch, sinScratch)
+  return { cos: cosScratch, sin: sinScratch }
+}
 import { RfInputError } from './errors'
 
 /** n points z[i] = (aRe[i] + j aIm[i]) / (bRe[i] + j bIm[i]). */
@@ -27,15 +55,14 @@ export type PointBuffer = {
   readonly bIm: Float64Array
 }
 
-const RAD_PER_DEG = Math.PI / 180
-const TWO_PI = 2 * Math.PI
 // Homogeneous coordinates may drift in scale; bring them back well before over- or underflow.
 const SCALE_HIGH = 1e100
 const SCALE_LOW = 1e-100
 
-/** A buffer of n points, all shorts until set. */
+/** A buffer of n points, all shorts until set (one allocation for the four arrays). */
 export function createPoints(n: number): PointBuffer {
-  const p = { n, aRe: new Float64Array(n), aIm: new Float64Array(n), bRe: new Float64Array(n), bIm: new Float64Array(n) }
+  const all = new Float64Array(4 * n)
+  const p = { n, aRe: all.subarray(0, n), aIm: all.subarray(n, 2 * n), bRe: all.subarray(2 * n, 3 * n), bIm: all.subarray(3 * n) }
   p.bRe.fill(1)
   return p
 }
@@ -57,24 +84,6 @@ export function readImpedance(p: PointBuffer, i: number): Complex {
 /** The admittance b/a at point i (`OPEN`, i.e. infinite, when a = 0). */
 export function readAdmittance(p: PointBuffer, i: number): Complex {
   return divideParts(p.bRe[i]!, p.bIm[i]!, p.aRe[i]!, p.aIm[i]!)
-}
-
-// cos and sin of a whole multiple of 90° are exactly 0 or ±1, so that a quarter-wave line turns a
-// short into an exact open and a 0° or 90° stub is an exact open or short. Only checked when
-// Math.cos or Math.sin is already tiny, to keep the loop fast.
-const NEAR_ZERO = 1e-12
-const trig = new Float64Array(2)
-
-function exactCosSin(tDeg: number, c: number, s: number): void {
-  const quarter = tDeg / 90
-  if (Number.isInteger(quarter)) {
-    const k = ((quarter % 4) + 4) % 4
-    trig[0] = k === 0 ? 1 : k === 2 ? -1 : 0
-    trig[1] = k === 1 ? 1 : k === 3 ? -1 : 0
-  } else {
-    trig[0] = c
-    trig[1] = s
-  }
 }
 
 function setOpen(p: PointBuffer, i: number): void {
@@ -99,26 +108,25 @@ function setShort(p: PointBuffer, i: number): void {
  * Exact degenerate parts: series C = 0 or a series stub with an infinite Z gives an open; shunt
  * L = 0, R = 0 or a shunt stub with infinite Y gives a short.
  */
-export function applyElementToPoints(p: PointBuffer, element: Element, frequenciesHz: ArrayLike<number>): void {
+export function applyElementToPoints(
+  p: PointBuffer, element: Element, frequenciesHz: ArrayLike<number>, options: StepOptions = {},
+): void {
   const { n, aRe, aIm, bRe, bIm } = p
+  const uniform = options.uniformGrid === true
+  // Every loop below reads frequencies from a Float64Array only, so the JIT keeps them monomorphic.
+  const frequencies = asFloat64(frequenciesHz)
   switch (element.kind) {
     case 'L':
     case 'C':
     case 'R':
-      applyLumped(p, element.kind, element.placement, element.value, element.q, frequenciesHz)
+      applyLumped(p, element.kind, element.placement, element.value, element.q, frequencies)
       break
     case 'line': {
       const zc = element.z0
-      const radRef = element.deg * RAD_PER_DEG
+      const { cos, sin } = anglesFor(element.deg, element.fRef, frequencies, uniform)
       for (let i = 0; i < n; i++) {
-        const f = frequenciesHz[i]!
-        const t = element.fRef === undefined ? radRef : (radRef * f) / element.fRef
-        let c = Math.cos(t)
-        let s = Math.sin(t)
-        if (Math.abs(c) < NEAR_ZERO || Math.abs(s) < NEAR_ZERO) {
-          exactCosSin(element.fRef === undefined ? element.deg : (element.deg * f) / element.fRef, c, s)
-          c = trig[0]!; s = trig[1]!
-        }
+        const c = cos[i]!
+        const s = sin[i]!
         const zs = zc * s
         const ys = s / zc
         const ar = aRe[i]!, ai = aIm[i]!, br = bRe[i]!, bi = bIm[i]!
@@ -130,7 +138,7 @@ export function applyElementToPoints(p: PointBuffer, element: Element, frequenci
       break
     }
     case 'stub':
-      applyStub(p, element.end, element.placement, element.z0, element.deg, element.fRef, frequenciesHz)
+      applyStub(p, element.end, element.placement, element.z0, anglesFor(element.deg, element.fRef, frequencies, uniform))
       break
     case 'xfmr': {
       const n2 = element.ratio * element.ratio
@@ -149,70 +157,71 @@ export function applyElementToPoints(p: PointBuffer, element: Element, frequenci
 
 function applyLumped(
   p: PointBuffer, kind: 'L' | 'C' | 'R', placement: 'series' | 'shunt', value: number,
-  q: number | undefined, frequenciesHz: ArrayLike<number>,
+  q: number | undefined, frequenciesHz: Float64Array,
+): void {
+  const invQ = kind !== 'R' && q !== undefined ? 1 / q : 0
+  const isSeries = placement === 'series'
+  if ((kind === 'C' && isSeries && value === 0) || (kind !== 'C' && !isSeries && value === 0)) {
+    for (let i = 0; i < p.n; i++) (isSeries ? setOpen : setShort)(p, i)
+    return
+  }
+  // The part's impedance (series) or admittance (shunt) is (cr + j ci)·g(f), g(f) = 1, f or 1/f:
+  // series L: ωL(1/Q + j); shunt L: (1/Q − j)/(ωL(1 + 1/Q²)); series C: (1/Q − j)/(ωC);
+  // shunt C: ωC(1/Q + j)/(1 + 1/Q²); R: R or 1/R.
+  const w = 2 * Math.PI * value
+  const k = 1 / (1 + invQ * invQ)
+  if (kind === 'R') {
+    addConstant(p, isSeries, isSeries ? value : 1 / value)
+  } else if (kind === 'L') {
+    if (isSeries) addScaled(p, true, w * invQ, w, frequenciesHz, false)
+    else addScaled(p, false, (k * invQ) / w, -k / w, frequenciesHz, true)
+  } else if (isSeries) {
+    addScaled(p, true, invQ / w, -1 / w, frequenciesHz, true)
+  } else {
+    addScaled(p, false, k * invQ * w, k * w, frequenciesHz, false)
+  }
+}
+
+/** series: a += r·b; shunt: b += r·a (a real, frequency-independent part). */
+function addConstant(p: PointBuffer, isSeries: boolean, r: number): void {
+  const { n, aRe, aIm, bRe, bIm } = p
+  const [toRe, toIm, fromRe, fromIm] = isSeries ? [aRe, aIm, bRe, bIm] : [bRe, bIm, aRe, aIm]
+  for (let i = 0; i < n; i++) {
+    toRe[i] = toRe[i]! + r * fromRe[i]!
+    toIm[i] = toIm[i]! + r * fromIm[i]!
+  }
+}
+
+/**
+ * series: a += (cr + j ci)·g·b; shunt: b += (cr + j ci)·g·a, with g = f (inverse false) or 1/f.
+ * One loop shape for all four reactive parts, so the JIT keeps it tight.
+ */
+function addScaled(
+  p: PointBuffer, isSeries: boolean, cr: number, ci: number, frequenciesHz: Float64Array, inverse: boolean,
 ): void {
   const { n, aRe, aIm, bRe, bIm } = p
-  const invQ = kind !== 'R' && q !== undefined ? 1 / q : 0
-  if (kind === 'R') {
-    if (placement === 'series') {
-      for (let i = 0; i < n; i++) {
-        aRe[i] = aRe[i]! + value * bRe[i]!
-        aIm[i] = aIm[i]! + value * bIm[i]!
-      }
-    } else if (value === 0) {
-      for (let i = 0; i < n; i++) setShort(p, i)
-    } else {
-      const g = 1 / value
-      for (let i = 0; i < n; i++) {
-        bRe[i] = bRe[i]! + g * aRe[i]!
-        bIm[i] = bIm[i]! + g * aIm[i]!
-      }
-    }
-    return
-  }
-  // zr + j zi is the part's impedance (series) or yr + j yi its admittance (shunt).
-  const isSeries = placement === 'series'
-  const k = 1 / (1 + invQ * invQ)
-  const w = TWO_PI * value
-  if ((kind === 'C' && isSeries && value === 0) || (kind === 'L' && !isSeries && value === 0)) {
-    for (let i = 0; i < n; i++) (isSeries ? setOpen : setShort)(p, i)
-    return
-  }
+  const [toRe, toIm, fromRe, fromIm] = isSeries ? [aRe, aIm, bRe, bIm] : [bRe, bIm, aRe, aIm]
   for (let i = 0; i < n; i++) {
-    const x = w * frequenciesHz[i]! // ωL or ωC
-    let re: number
-    let im: number
-    if (kind === 'L') {
-      if (isSeries) { re = x * invQ; im = x } else { const u = k / x; re = u * invQ; im = -u }
-    } else {
-      if (isSeries) { const u = 1 / x; re = u * invQ; im = -u } else { const u = k * x; re = u * invQ; im = u }
-    }
-    const ar = aRe[i]!, ai = aIm[i]!, br = bRe[i]!, bi = bIm[i]!
-    if (isSeries) {
-      aRe[i] = ar + re * br - im * bi
-      aIm[i] = ai + re * bi + im * br
-    } else {
-      bRe[i] = br + re * ar - im * ai
-      bIm[i] = bi + re * ai + im * ar
-    }
+    const f = frequenciesHz[i]!
+    const g = inverse ? 1 / f : f
+    const re = cr * g
+    const im = ci * g
+    const xr = fromRe[i]!
+    const xi = fromIm[i]!
+    toRe[i] = toRe[i]! + re * xr - im * xi
+    toIm[i] = toIm[i]! + re * xi + im * xr
   }
 }
 
 function applyStub(
-  p: PointBuffer, end: 'open' | 'short', placement: 'series' | 'shunt', zc: number, deg: number,
-  fRef: number | undefined, frequenciesHz: ArrayLike<number>,
+  p: PointBuffer, end: 'open' | 'short', placement: 'series' | 'shunt', zc: number,
+  angles: { cos: Float64Array; sin: Float64Array },
 ): void {
   const { n, aRe, aIm, bRe, bIm } = p
-  const radRef = deg * RAD_PER_DEG
   const isSeries = placement === 'series'
   for (let i = 0; i < n; i++) {
-    const t = fRef === undefined ? radRef : (radRef * frequenciesHz[i]!) / fRef
-    let c = Math.cos(t)
-    let s = Math.sin(t)
-    if (Math.abs(c) < NEAR_ZERO || Math.abs(s) < NEAR_ZERO) {
-      exactCosSin(fRef === undefined ? deg : (deg * frequenciesHz[i]!) / fRef, c, s)
-      c = trig[0]!; s = trig[1]!
-    }
+    const c = angles.cos[i]!
+    const s = angles.sin[i]!
     // The part's impedance as num/den with num = j·zc·nu (nu real) and den real.
     const den = end === 'open' ? s : c
     const nu = end === 'open' ? -c : s

@@ -5,9 +5,10 @@
  */
 import type { Complex, Element } from './types'
 import { RfInputError, describe, requirePositive } from './errors'
-import { OPEN, asComplex, divideInto } from './complex'
+import { OPEN, asComplex, divideInto, isInfinite } from './complex'
 import { validateElements } from './elements'
-import { createPoints, setPoint, type PointBuffer } from './points'
+import { applyElementToPoints, asFloat64, createPoints, setPoint, type PointBuffer } from './points'
+import { isUniformGrid } from './angles'
 import { applyLadderElement, type BlockLookup } from './twoport'
 
 /** Arguments of `sweep`. `load` is one impedance for every frequency or one per frequency. */
@@ -31,44 +32,94 @@ function checkFrequencies(value: unknown): ArrayLike<number> {
     throw new RfInputError('frequencies', `must be a non-empty array of Hz, got ${describe(value)}`)
   }
   const f = value as ArrayLike<number>
-  for (let i = 0; i < f.length; i++) requirePositive(f[i], `frequencies[${i}]`)
+  for (let i = 0; i < f.length; i++) {
+    const x = f[i]
+    // The argument name is built only on failure: this loop runs on every sweep.
+    if (!(typeof x === 'number' && x > 0 && x < Infinity)) requirePositive(x, `frequencies[${i}]`)
+  }
   return f
 }
 
+// One scratch buffer reused across sweeps (sweeps are synchronous, so never shared by two at once):
+// allocating four typed arrays per call costs more than a short ladder's arithmetic.
+let scratch: PointBuffer | undefined
+
+function scratchPoints(n: number): PointBuffer {
+  if (!scratch || scratch.n !== n) scratch = createPoints(n)
+  else {
+    scratch.aRe.fill(0)
+    scratch.aIm.fill(0)
+    scratch.bRe.fill(1)
+    scratch.bIm.fill(0)
+  }
+  return scratch
+}
+
 function loadPoints(load: unknown, n: number): PointBuffer {
-  const p = createPoints(n)
+  const p = scratchPoints(n)
   if (Array.isArray(load)) {
     if (load.length !== n) {
       throw new RfInputError('load', `has ${load.length} impedances for ${n} frequencies (give one, or one per frequency)`)
     }
-    for (let i = 0; i < n; i++) setPoint(p, i, asComplex(load[i], `load[${i}]`, true))
+    for (let i = 0; i < n; i++) {
+      const z = load[i] as Complex
+      // Plain finite values go straight in; anything else is checked (and named) properly.
+      if (z !== null && typeof z === 'object' && Number.isFinite(z.re) && Number.isFinite(z.im)) {
+        p.aRe[i] = z.re
+        p.aIm[i] = z.im
+      } else {
+        setPoint(p, i, asComplex(z, `load[${i}]`, true))
+      }
+    }
   } else {
     const z = asComplex(load, 'load', true)
-    for (let i = 0; i < n; i++) setPoint(p, i, z)
+    if (isInfinite(z)) {
+      p.aRe.fill(1)
+      p.bRe.fill(0)
+    } else {
+      p.aRe.fill(z.re)
+      p.aIm.fill(z.im)
+    }
   }
   return p
 }
 
+/** Runs the ladder over the band on the scratch buffer; the result is read by the callers below. */
+function sweepPoints(input: SweepInput): { p: PointBuffer; frequencies: Float64Array } {
+  requirePositive(input?.z0, 'z0')
+  const frequencies = asFloat64(checkFrequencies(input.frequencies))
+  const elements = validateElements(input.elements, 'elements', { requireFRef: true })
+  const p = loadPoints(input.load, frequencies.length)
+  const uniformGrid = isUniformGrid(frequencies)
+  elements.forEach((e, i) => {
+    if (e.kind === 'block') applyLadderElement(p, e, frequencies, input.blocks, `elements[${i}]`)
+    // Rescaling every fourth element is enough: four parts cannot take a pair from 1e100 to overflow.
+    else applyElementToPoints(p, e, frequencies, { uniformGrid, rescale: i % 4 === 3 })
+  })
+  return { p, frequencies }
+}
+
+/** z = a/b at point i into q (Smith's division, infinity as (Infinity, 0)); NaN throws. */
+function quotientAt(p: PointBuffer, i: number, q: Float64Array, frequencies: Float64Array): void {
+  divideInto(p.aRe[i]!, p.aIm[i]!, p.bRe[i]!, p.bIm[i]!, q)
+  if (Number.isNaN(q[0]) || Number.isNaN(q[1])) {
+    throw new RfInputError('elements', `values too large to compute at ${frequencies[i]} Hz`)
+  }
+}
+
 /**
- * The same as `sweep` but returning flat arrays: the fast path for plots and Monte Carlo.
- * Each output is z = a/b of the homogeneous point (points.ts), divided with Smith's scaling.
+ * The same as `sweep` but returning flat arrays (Ω): the fast path for plots and Monte Carlo,
+ * with no object per frequency.
  */
 export function sweepFlat(input: SweepInput): FlatImpedances {
-  requirePositive(input?.z0, 'z0')
-  const frequencies = checkFrequencies(input.frequencies)
-  const elements = validateElements(input.elements, 'elements', { requireFRef: true })
-  const n = frequencies.length
-  const p = loadPoints(input.load, n)
-  elements.forEach((e, i) => applyLadderElement(p, e, frequencies, input.blocks, `elements[${i}]`))
-  const re = new Float64Array(n)
-  const im = new Float64Array(n)
-  const { aRe, aIm, bRe, bIm } = p
+  const { p, frequencies } = sweepPoints(input)
+  const n = p.n
+  const out = new Float64Array(2 * n)
+  const re = out.subarray(0, n)
+  const im = out.subarray(n)
   const q = new Float64Array(2)
   for (let i = 0; i < n; i++) {
-    divideInto(aRe[i]!, aIm[i]!, bRe[i]!, bIm[i]!, q)
-    if (Number.isNaN(q[0]) || Number.isNaN(q[1])) {
-      throw new RfInputError('elements', `values too large to compute at ${frequencies[i]} Hz`)
-    }
+    quotientAt(p, i, q, frequencies)
     re[i] = q[0]!
     im[i] = q[1]!
   }
@@ -82,8 +133,12 @@ export function sweepFlat(input: SweepInput): FlatImpedances {
  * (e.g. `elements[1].fRef` when a line has none).
  */
 export function sweep(input: SweepInput): Complex[] {
-  const { re, im } = sweepFlat(input)
-  const out: Complex[] = new Array(re.length)
-  for (let i = 0; i < re.length; i++) out[i] = re[i] === Infinity ? OPEN : { re: re[i]!, im: im[i]! }
+  const { p, frequencies } = sweepPoints(input)
+  const out: Complex[] = new Array(p.n)
+  const q = new Float64Array(2)
+  for (let i = 0; i < p.n; i++) {
+    quotientAt(p, i, q, frequencies)
+    out[i] = q[0] === Infinity ? OPEN : { re: q[0]!, im: q[1]! }
+  }
   return out
 }

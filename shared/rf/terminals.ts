@@ -30,7 +30,7 @@ export function rlcImpedance(model: RlcModel, frequencyHz: number): Complex {
   for (const [kind, value] of parts) {
     if (value === undefined) continue
     requireNonNegative(value, `model.${kind.toLowerCase()}`)
-    applyElementToPoints(p, { kind, placement, value } as Element, [f])
+    applyElementToPoints(p, { kind, placement, value } as Element, Float64Array.of(f))
   }
   return readImpedance(p, 0)
 }

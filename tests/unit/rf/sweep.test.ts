@@ -48,6 +48,32 @@ describe('sweep properties (seeded)', () => {
     }
   })
 
+  it('agrees with trace over a 1001-point uniform band and an uneven band (to 1e-12)', () => {
+    const rng = seedrandom('sweep-wide-band')
+    const f0 = 2.44e9
+    const uniform = Array.from({ length: 1001 }, (_, i) => 2.0e9 + (0.9e9 * i) / 1000)
+    const uneven = uniform.map((f, i) => f + (i % 7) * 1e3)
+    for (let k = 0; k < 5; k++) {
+      const elements = randomLadder(rng, f0, { length: 10 })
+      const load = randomPassiveLoad(rng)
+      for (const frequencies of [uniform, uneven]) {
+        const out = sweep({ z0: 50, frequencies, load, elements })
+        frequencies.forEach((f, i) => {
+          const z = inputImpedance({ z0: 50, frequency: f, load, elements })
+          const err = Math.hypot(out[i]!.re - z.re, out[i]!.im - z.im) / Math.hypot(z.re, z.im)
+          expect(err, `at ${f} Hz`).toBeLessThan(1e-12)
+        })
+      }
+    }
+  })
+
+  it('a quarter-wave line on a short is an exact open at f = fRef inside a swept band', () => {
+    const frequencies = Array.from({ length: 101 }, (_, i) => 0.9e9 + 2e6 * i)
+    const out = sweep({ z0: 50, frequencies, load: { re: 0, im: 0 }, elements: [{ kind: 'line', z0: 50, deg: 90, fRef: frequencies[50]! }] })
+    expect(out[50]).toEqual({ re: Infinity, im: 0 })
+    expect(Number.isFinite(out[49]!.im)).toBe(true)
+  })
+
   it('sweepFlat carries the same numbers as sweep and marks an open as Infinity', () => {
     const frequencies = new Float64Array([1e8, 2e8, 3e8])
     const elements: Element[] = [{ kind: 'C', placement: 'series', value: 1e-12 }]
