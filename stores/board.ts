@@ -276,6 +276,14 @@ export const useBoardStore = defineStore('board', () => {
     return updateElement(id, { [field]: value })
   }
 
+  /** Sets or (with empty text) removes the finite Q of an L or C; returns the refusal or null. */
+  function setElementQ(id: string, text: string): string | null {
+    const element = elements.value.find(e => e.id === id)
+    if (!element || (element.kind !== 'L' && element.kind !== 'C')) return 'Only inductors and capacitors take a Q.'
+    if (!text.trim() || text.trim() === '∞') return updateElement(id, { q: undefined })
+    return setElementField(id, 'q', text)
+  }
+
   function select(id: string | null) {
     selectedId.value = id
   }
@@ -387,7 +395,7 @@ export const useBoardStore = defineStore('board', () => {
     solutions, solveNotes, previewTrace,
     // actions
     openBoard, closeBoard, applySnapshot, setHistory,
-    addElement, addFromPalette, removeElement, moveElement, updateElement, setLocked, setElementField, select,
+    addElement, addFromPalette, removeElement, moveElement, updateElement, setLocked, setElementField, setElementQ, select,
     beginDrag, dragTo, commitDrag, cancelDrag,
     updateSettings, setTerminal, setSettingsField, setTerminalField, setTerminalKind, setTerminalTopology,
     setPreview, applySolution, setLoadedQ,

@@ -5,9 +5,9 @@ import { formatEng, parseEng } from '../rf'
 import type { BoardElement, ElementJson, ElementKind } from './schema'
 
 /** The field a tile edits and a chart drag changes. */
-export type EditField = 'value' | 'deg' | 'ratio' | 'z0'
+export type EditField = 'value' | 'deg' | 'ratio' | 'z0' | 'q'
 
-export function mainFieldOf(kind: ElementKind): Exclude<EditField, 'z0'> {
+export function mainFieldOf(kind: ElementKind): Exclude<EditField, 'z0' | 'q'> {
   if (kind === 'line' || kind === 'stub') return 'deg'
   if (kind === 'xfmr') return 'ratio'
   return 'value'
@@ -18,6 +18,7 @@ const UNIT_OF_KIND: Record<'L' | 'C' | 'R', string> = { L: 'H', C: 'F', R: 'Ω' 
 /** The unit symbol of a field of an element kind. */
 export function unitOf(kind: ElementKind, field: EditField): string {
   if (field === 'z0') return 'Ω'
+  if (field === 'q') return ''
   if (field === 'deg') return '°'
   if (field === 'ratio') return ':1'
   return UNIT_OF_KIND[kind as 'L' | 'C' | 'R']
@@ -44,6 +45,7 @@ export function formatField(element: ElementJson, field: EditField): string {
   if (value === undefined) return ''
   if (field === 'deg') return `${significant(value)}°`
   if (field === 'ratio') return `${significant(value)}:1`
+  if (field === 'q') return significant(value)
   return formatEng(value, unitOf(element.kind, field))
 }
 
@@ -57,6 +59,7 @@ const UNIT_SUFFIXES: Record<EditField, RegExp> = {
   z0: /\s*(Ω|ohms?|Ohms?)$/,
   deg: /\s*(°|deg|degrees?)$/,
   ratio: /\s*(:\s*1|x)$/,
+  q: /$/,
 }
 
 /**
@@ -80,7 +83,7 @@ export function parseFieldValue(kind: ElementKind, field: EditField, text: strin
     if (value > 36000) throw new ValueEntryError('A length above 36000° is not plausible')
   }
   else if (value <= 0) {
-    const what = field === 'ratio' ? 'A turns ratio' : field === 'z0' ? 'A line impedance' : 'A part value'
+    const what = { ratio: 'A turns ratio', z0: 'A line impedance', q: 'Q', value: 'A part value' }[field]
     throw new ValueEntryError(`${what} must be greater than zero`)
   }
   return value

@@ -217,3 +217,18 @@ describe('solutions and remote edits', () => {
     expect(store.elements[0]).toMatchObject({ value: 8.2e-9 })
   })
 })
+
+describe('finite Q', () => {
+  it('sets, refuses and removes the Q of an L or C', () => {
+    expect(store.setElementQ('ant-c1', '80')).toBeNull()
+    expect(store.elements[1]).toMatchObject({ q: 80 })
+    expect(store.setElementQ('ant-c1', '-3')).toMatch(/Q must be greater than zero/)
+    expect(store.elements[1]).toMatchObject({ q: 80 })
+    expect(store.setElementQ('ant-l1', '')).toBeNull()
+    expect(store.elements[0]).not.toHaveProperty('q')
+    // A lossy C moves the end point off the lossless one: finite Q adds series resistance.
+    const lossless = store.endPoint
+    store.setElementQ('ant-c1', '5')
+    expect(store.endPoint).not.toEqual(lossless)
+  })
+})
