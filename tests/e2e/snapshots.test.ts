@@ -3,7 +3,8 @@
 // tests/artifacts/ for a person to look at.
 import { mkdirSync } from 'node:fs'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { chromium, type Browser, type Page } from 'playwright-core'
+import type { Browser, Page } from 'playwright-core'
+import { launchChromium } from '../support/browser'
 import { DEMO_USERS, signIn } from '../support/auth'
 
 const baseUrl = inject('baseUrl')
@@ -17,12 +18,7 @@ async function tileIds(): Promise<string[]> {
 
 beforeAll(async () => {
   mkdirSync(ARTIFACTS, { recursive: true })
-  browser = await chromium.launch({
-    executablePath: '/usr/bin/chromium',
-    headless: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
-      '--disable-component-update', '--disable-sync'],
-  })
+  browser = await launchChromium()
   page = await (await browser.newContext({ viewport: { width: 1440, height: 900 } })).newPage()
 })
 afterAll(async () => {
