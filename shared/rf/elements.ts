@@ -118,12 +118,8 @@ function asTwoTerminal(element: Element): TwoTerminal {
  * 0°) is `OPEN`. Sign convention: inductive reactance positive. Throws for a line or transformer.
  */
 export function elementImpedance(element: Element, frequencyHz: number): Complex {
-  const part = asTwoTerminal(validateElement(element, 'element'))
-  const f = requireFrequency(frequencyHz, 'frequencyHz')
-  const p = createPoints(1)
-  setPoint(p, 0, SHORT)
-  applyElementToPoints(p, { ...part, placement: 'series' } as Element, Float64Array.of(f))
-  return readImpedance(p, 0)
+  // In series on a short, the point becomes the part's own impedance.
+  return readImpedance(partOn(SHORT, 'series', element, frequencyHz), 0)
 }
 
 /**
@@ -132,12 +128,17 @@ export function elementImpedance(element: Element, frequencyHz: number): Complex
  * (infinite admittance) rather than a division by zero.
  */
 export function elementAdmittance(element: Element, frequencyHz: number): Complex {
+  return readAdmittance(partOn(OPEN, 'shunt', element, frequencyHz), 0)
+}
+
+/** One point at `start` moved through the part placed as given. */
+function partOn(start: Complex, placement: Placement, element: Element, frequencyHz: number) {
   const part = asTwoTerminal(validateElement(element, 'element'))
   const f = requireFrequency(frequencyHz, 'frequencyHz')
   const p = createPoints(1)
-  setPoint(p, 0, OPEN)
-  applyElementToPoints(p, { ...part, placement: 'shunt' } as Element, Float64Array.of(f))
-  return readAdmittance(p, 0)
+  setPoint(p, 0, start)
+  applyElementToPoints(p, { ...part, placement } as Element, Float64Array.of(f))
+  return p
 }
 
 /**
