@@ -44,7 +44,7 @@ function lSteps(from: ComplexJs, to: ComplexJs, topology: LTopology): Step[][] {
   if (Math.abs(disc) <= BOUNDARY * term) disc = 0
   if (disc < 0) return []
   const roots = disc === 0 ? [0] : [Math.sqrt(disc), -Math.sqrt(disc)]
-  const [first, second]: ('series' | 'shunt')[] = isShuntFirst ? ['shunt', 'series'] : ['series', 'shunt']
+  const [first, second] = isShuntFirst ? (['shunt', 'series'] as const) : (['series', 'shunt'] as const)
   return roots.map((r) => {
     const mid = new ComplexJs(a.re, r).inverse() // the point after step one, in the other plane
     return [
@@ -155,7 +155,7 @@ function qNetwork(input: SolveQNetworkInput, kind: 'pi' | 'T'): Element[][] {
   }
   const rv = kind === 'pi' ? hi / (q * q + 1) : lo * (q * q + 1)
   const virtual = new ComplexJs(kind === 'pi' ? Math.min(rv, lo) : Math.max(rv, hi), 0)
-  const [firstHalf, secondHalf]: LTopology[] = kind === 'pi' ? ['shunt-series', 'series-shunt'] : ['series-shunt', 'shunt-series']
+  const [firstHalf, secondHalf] = kind === 'pi' ? (['shunt-series', 'series-shunt'] as const) : (['series-shunt', 'shunt-series'] as const)
   const scale = scaleOf(a, b, virtual)
   const ladders: Element[][] = []
   for (const s1 of lSteps(a, virtual, firstHalf)) {

@@ -29,7 +29,7 @@ function direct(z: { re: number; im: number }, e: Element, f: number): { re: num
     out = zc.add(j.mul(e.z0 * t)).div(new Complex(e.z0, 0).add(j.mul(zc).mul(t))).mul(e.z0)
   } else if (e.kind === 'xfmr') {
     out = zc.mul(e.ratio * e.ratio)
-  } else if (e.placement === 'series') {
+  } else if (e.kind !== 'block' && e.placement === 'series') {
     out = zc.add(part())
   } else {
     out = zc.inverse().add(part().inverse()).inverse()

@@ -78,6 +78,7 @@ function netlistOf(c: Circuit): string[] {
   c.elements.forEach((e, i) => {
     const tag = `${k}_${i}`
     const next = `n${k}_${i + 1}`
+    if (e.kind === 'block') throw new Error('no measured blocks in the SPICE ladders')
     const b = e.kind === 'line' || e.kind === 'xfmr' ? '' : e.placement === 'series' ? next : '0'
     switch (e.kind) {
       case 'L':

@@ -8,7 +8,7 @@ import { REFERENCE_SOURCE, WORKED_SOURCE, casesWhere, complexError, expectComple
 
 function sameLadder(actual: readonly Element[], expected: readonly Element[]): boolean {
   return actual.length === expected.length && actual.every((e, i) => {
-    const x = expected[i] as Element & { value: number }
+    const x = expected[i] as Element & { value: number; placement: string }
     return e.kind === x.kind && 'value' in e && e.placement === x.placement &&
       Math.abs(e.value - x.value) <= 1e-6 * Math.abs(x.value)
   })
