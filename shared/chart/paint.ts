@@ -10,6 +10,7 @@ import type { ScreenArc } from './clip'
 import { arcToScreen } from './clip'
 import type { ScreenHandle, ScreenTraceScene } from './scene'
 import type { ScreenPoint, ViewTransform } from './viewport'
+import { MARKER_HUE } from '../board/measured-style'
 
 /** The part of a canvas 2D context the painters use (declared here: shared code has no DOM types). */
 export interface Paint2D {
@@ -128,6 +129,12 @@ function dot(ctx: Paint2D, p: ScreenPoint, radius: number, fill: string, ring?: 
   }
 }
 
+function endLabel(ctx: Paint2D, text: string, at: ScreenPoint, dir: { x: number; y: number }) {
+  ctx.textAlign = dir.x > 0.35 ? 'left' : dir.x < -0.35 ? 'right' : 'center'
+  ctx.textBaseline = dir.y > 0.35 ? 'top' : dir.y < -0.35 ? 'bottom' : 'middle'
+  ctx.fillText(text, at.x + dir.x * 9, at.y + dir.y * 9)
+}
+
 /** Band ribbon, preview, constant-Q arcs, mismatch ring, element segments, goal and end markers. */
 export function paintTraces(ctx: Paint2D, scene: ScreenTraceScene, labels: { bandStart: string; bandStop: string; q: string | null }) {
   ctx.save()
@@ -190,12 +197,15 @@ export function paintTraces(ctx: Paint2D, scene: ScreenTraceScene, labels: { ban
     ctx.rect(stop.x - 3.5, stop.y - 3.5, 7, 7)
     ctx.fill()
     ctx.stroke()
+    // Each end's label sits beyond its end, away from the other end, so the two never meet.
+    const dx = start.x - stop.x
+    const dy = start.y - stop.y
+    const n = Math.hypot(dx, dy)
+    const dir = n > 1 ? { x: dx / n, y: dy / n } : { x: -1, y: 0 }
     ctx.font = LABEL_FONT
     ctx.fillStyle = CHART_COLOURS.ink
-    ctx.textAlign = 'left'
-    ctx.textBaseline = 'middle'
-    ctx.fillText(labels.bandStart, start.x + 7, start.y)
-    ctx.fillText(labels.bandStop, stop.x + 7, stop.y)
+    endLabel(ctx, labels.bandStart, start, dir)
+    endLabel(ctx, labels.bandStop, stop, { x: -dir.x, y: -dir.y })
   }
 
   // A solver preview: dashed ink, above the band, below the live trace.
@@ -232,6 +242,21 @@ export function paintTraces(ctx: Paint2D, scene: ScreenTraceScene, labels: { ban
   ctx.stroke()
   dot(ctx, scene.load, 4, CHART_COLOURS.ink, CHART_COLOURS.paper)
   dot(ctx, scene.end, 4.5, CHART_COLOURS.accent, CHART_COLOURS.paper)
+
+  // Frequency markers on the band ribbon: small diamonds with their frequency.
+  ctx.font = SMALL_LABEL_FONT
+  ctx.textAlign = 'left'
+  ctx.textBaseline = 'bottom'
+  for (const m of scene.marks) {
+    ctx.beginPath()
+    ctx.moveTo(m.x, m.y - 5)
+    ctx.lineTo(m.x + 5, m.y)
+    ctx.lineTo(m.x, m.y + 5)
+    ctx.lineTo(m.x - 5, m.y)
+    ctx.fillStyle = MARKER_HUE
+    ctx.fill()
+    ctx.fillText(m.label, m.x + 6, m.y - 4)
+  }
   ctx.restore()
 }
 

@@ -24,6 +24,20 @@ export function handleAt<H extends ScreenPoint & { id: string }>(handles: readon
   return best
 }
 
+/** The index of the point of a flat screen polyline [x0, y0, x1, y1, …] nearest (x, y) within reach, or −1. */
+export function pointIndexAt(points: readonly number[], x: number, y: number, reachPx = HANDLE_REACH_PX): number {
+  let best = -1
+  let bestDistance = reachPx
+  for (let i = 0; i + 1 < points.length; i += 2) {
+    const d = Math.hypot(points[i]! - x, points[i + 1]! - y)
+    if (d <= bestDistance) {
+      best = i / 2
+      bestDistance = d
+    }
+  }
+  return best
+}
+
 export interface ReadoutRow {
   readonly label: string
   readonly text: string

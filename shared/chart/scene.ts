@@ -26,6 +26,8 @@ export interface TraceSceneInput {
   readonly preview: { readonly elements: readonly Element[]; readonly trace: readonly Complex[] } | null
   /** Constant-Q arcs to draw, or null. */
   readonly qArc: number | null
+  /** Frequency markers on the band ribbon: the index of their band point and their label. */
+  readonly marks?: readonly { readonly index: number; readonly label: string }[]
   readonly z0: number
   readonly frequencyHz: number
 }
@@ -46,6 +48,7 @@ export interface TraceScene {
   readonly segments: readonly GammaSegment[]
   readonly preview: readonly GammaPolyline[]
   readonly band: GammaPolyline
+  readonly marks: readonly { readonly gamma: Complex; readonly label: string }[]
   readonly load: Complex
   readonly end: Complex
   readonly goal: Complex
@@ -76,6 +79,7 @@ export function buildTraceScene(input: TraceSceneInput): TraceScene {
       if (arc) qArcs.push(arc)
     }
   }
+  const band = gammaPolyline(input.band, z0)
   const handles: GammaHandle[] = []
   elements.forEach((e, i) => {
     if (isDraggable(e) && !e.locked && gammas[i + 1]) handles.push({ id: e.id, hue: hueFor(e), gamma: gammas[i + 1]! })
@@ -83,7 +87,10 @@ export function buildTraceScene(input: TraceSceneInput): TraceScene {
   return {
     segments: paths.map((points, i) => ({ id: elements[i]!.id, hue: hueFor(elements[i]!), points })),
     preview: input.preview ? segmentsOf(input.preview.elements, input.preview.trace, z0, frequencyHz) : [],
-    band: gammaPolyline(input.band, z0),
+    band,
+    marks: (input.marks ?? []).flatMap(m => (m.index >= 0 && 2 * m.index + 1 < band.length
+      ? [{ gamma: { re: band[2 * m.index]!, im: band[2 * m.index + 1]! }, label: m.label }]
+      : [])),
     load: gammas[0] ?? { re: 0, im: 0 },
     end,
     goal,
@@ -108,6 +115,7 @@ export interface ScreenTraceScene {
   readonly segments: readonly ScreenSegment[]
   readonly preview: readonly number[][]
   readonly band: number[]
+  readonly marks: readonly (ScreenPoint & { readonly label: string })[]
   readonly load: ScreenPoint
   readonly end: ScreenPoint
   readonly goal: ScreenPoint
@@ -122,6 +130,7 @@ export function sceneToScreen(scene: TraceScene, view: ViewTransform): ScreenTra
     segments: scene.segments.map(s => ({ id: s.id, hue: s.hue, points: polylineToScreen(s.points, view) })),
     preview: scene.preview.map(p => polylineToScreen(p, view)),
     band: polylineToScreen(scene.band, view),
+    marks: scene.marks.map(m => ({ ...gammaToScreen(m.gamma, view), label: m.label })),
     load: gammaToScreen(scene.load, view),
     end: gammaToScreen(scene.end, view),
     goal: gammaToScreen(scene.goal, view),

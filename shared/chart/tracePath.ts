@@ -4,6 +4,7 @@
  * (shunt) in proportion to a parameter s from 0 (no part) to 1 (its value) — a lossy L or C too,
  * since its ESR = |X|/Q scales with X — so the path is z_prev + s·(z_next − z_prev) in the plane
  * it adds in. A line turns the point about its own Zc as its length grows from 0 to its value.
+ * A measured block has no such path and is drawn as a straight step.
  * Points are sampled by bisection until neighbours are closer than `maxStepGamma` in Γ.
  */
 import type { Complex, Element } from '../rf/types'
@@ -35,6 +36,12 @@ function lerp(a: Complex, b: Complex, s: number): Complex {
 function pathPoint(element: Element, zPrev: Complex, zNext: Complex, z0: number, frequencyHz: number) {
   if (element.kind === 'line') {
     return (s: number) => gammaOf(applyElement(zPrev, { ...element, deg: element.deg * s }, frequencyHz), z0)
+  }
+  if (element.kind === 'block') {
+    // Measured data has no path between its ends: a straight step in Γ.
+    const a = gammaOf(zPrev, z0)
+    const b = gammaOf(zNext, z0)
+    return (s: number) => lerp(a, b, s)
   }
   const isShunt = 'placement' in element && element.placement === 'shunt'
   if (isShunt) {

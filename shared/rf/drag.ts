@@ -22,7 +22,7 @@
  * Γ = (k + Γc)/(1 + kΓc), k = (Zc − Z0)/(Zc + Z0) — a circle symmetric about the real axis through
  * (k ± ρ)/(1 ± kρ).
  *
- * A transformer has no drag (its ratio is typed).
+ * A transformer and a measured block have no drag (a ratio is typed, a block is data).
  */
 import type { Complex, Element, LumpedElement, LineElement, StubElement } from './types'
 import { OPEN, isInfinite } from './complex'
@@ -102,9 +102,9 @@ export interface DragResult {
   readonly blocked?: 'sign'
 }
 
-/** True for the elements that have a handle on the chart (all but the transformer). */
+/** True for the elements that have a handle on the chart (all but the transformer and a measured block). */
 export function isDraggable(element: Element): boolean {
-  return element.kind !== 'xfmr'
+  return element.kind !== 'xfmr' && element.kind !== 'block'
 }
 
 /** The field a drag of this element changes. */
@@ -126,7 +126,7 @@ export const DRAG_T_MAX = 1e6
  * on a short, a line matched to its own Zc) or the element is a transformer.
  */
 export function dragLocus(element: Element, zPrev: Complex, z0: number, frequencyHz: number): GammaLocus | null {
-  if (element.kind === 'xfmr') return null
+  if (element.kind === 'xfmr' || element.kind === 'block') return null
   if (element.kind === 'line') return lineLocus(element, zPrev, z0)?.locus ?? null
   const ray = rayOf(element, zPrev, z0, frequencyHz)
   return ray ? rayLocus(ray) : null
@@ -136,11 +136,12 @@ export function dragLocus(element: Element, zPrev: Complex, z0: number, frequenc
  * The element value that puts the point nearest to `pointer` while keeping it on the element's
  * locus (see the file comment): the pointer is projected onto the locus (nearest point in Γ), the
  * value is read from the projected point, and the point is recomputed from that value.
- * Throws for a transformer (not draggable).
+ * Throws for a transformer or a measured block (not draggable).
  */
 export function dragElement(input: DragInput): DragResult {
   const { element, zPrev, z0, frequencyHz } = input
   if (element.kind === 'xfmr') throw new RfInputError('element', 'a transformer is not draggable: type its ratio')
+  if (element.kind === 'block') throw new RfInputError('element', 'a measured block is not draggable')
   if (element.kind === 'line') return dragLine(element, input)
   const ray = rayOf(element, zPrev, z0, frequencyHz)
   const field = dragFieldOf(element)
@@ -182,7 +183,7 @@ interface Ray {
 }
 
 function rayOf(element: Element, zPrev: Complex, z0: number, frequencyHz: number): Ray | null {
-  if (element.kind === 'line' || element.kind === 'xfmr') return null
+  if (element.kind === 'line' || element.kind === 'xfmr' || element.kind === 'block') return null
   const isSeries = element.placement === 'series'
   // A series part on an open, or a shunt part on a short, leaves the point where it is.
   if (isSeries && isInfinite(zPrev)) return null

@@ -7,7 +7,7 @@ import { trace } from '../../../shared/rf/ladder'
 import { dragLocus, distanceFromLocus } from '../../../shared/rf/drag'
 import { segmentPath } from '../../../shared/chart/tracePath'
 import { buildTraceScene, locusToScreen, sceneToScreen, type SceneElement } from '../../../shared/chart/scene'
-import { cursorReadout, handleAt } from '../../../shared/chart/pointer'
+import { cursorReadout, handleAt, pointIndexAt } from '../../../shared/chart/pointer'
 import { fitView } from '../../../shared/chart/viewport'
 
 const Z0 = 50
@@ -83,6 +83,16 @@ describe('buildTraceScene', () => {
     expect(scene.qArcs.length).toBe(2)
   })
 
+  it('puts markers on their band points', () => {
+    const band = [{ re: 50, im: 0 }, { re: 25, im: 0 }, { re: 100, im: 0 }]
+    const marked = buildTraceScene({
+      elements: [], trace: [LOAD], band, goal: { re: 50, im: 0 }, preview: null, qArc: null, z0: Z0, frequencyHz: F,
+      marks: [{ index: 2, label: 'f3' }, { index: 7, label: 'gone' }],
+    })
+    expect(marked.marks.map(m => m.label)).toEqual(['f3'])
+    expect(marked.marks[0]!.gamma.re).toBeCloseTo(1 / 3, 12)
+  })
+
   it('projects onto the screen with the view', () => {
     const view = fitView(600, 400)
     const screen = sceneToScreen(scene, view)
@@ -99,6 +109,13 @@ describe('pointer helpers', () => {
     expect(handleAt(handles, 105, 100)).toBe('b')
     expect(handleAt(handles, 101, 101)).toBe('a')
     expect(handleAt(handles, 150, 150)).toBeNull()
+  })
+
+  it('finds the nearest point of a polyline within reach', () => {
+    const points = [0, 0, 10, 0, 20, 0]
+    expect(pointIndexAt(points, 12, 3)).toBe(1)
+    expect(pointIndexAt(points, 19, -2)).toBe(2)
+    expect(pointIndexAt(points, 50, 50)).toBe(-1)
   })
 
   it('reads the centre as Z0, a match', () => {

@@ -302,6 +302,13 @@ describe('degenerate points and the transformer', () => {
     expect(() => dragElement({ element, zPrev: { re: 10, im: 0 }, pointer: { re: 0, im: 0 }, z0: Z0, frequencyHz: F })).toThrow(/transformer/)
   })
 
+  it('a measured block has no drag either', () => {
+    const element = { kind: 'block', uploadId: 'u1', name: 'filter.s2p' } as unknown as Element
+    expect(isDraggable(element)).toBe(false)
+    expect(dragLocus(element, { re: 10, im: 0 }, Z0, F)).toBeNull()
+    expect(() => dragElement({ element, zPrev: { re: 10, im: 0 }, pointer: { re: 0, im: 0 }, z0: Z0, frequencyHz: F })).toThrow(/block/)
+  })
+
   it('a series part on an open keeps its value and the open', () => {
     const element: Element = { kind: 'L', placement: 'series', value: 3e-9 }
     const result = dragElement({ element, zPrev: { re: Infinity, im: 0 }, pointer: { re: 0.2, im: 0.4 }, z0: Z0, frequencyHz: F })

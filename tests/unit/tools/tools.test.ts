@@ -112,6 +112,7 @@ describe('chartPointer', () => {
     const frames = manualFrames()
     const pans: string[] = []
     const hovers: (number | null)[] = []
+    const clicks: string[] = []
     const drag = createDragTool(actions)
     const pan = createPanTool({ offset: (x, y) => pans.push(`${x},${y}`), finish: (x, y) => pans.push(`end ${x},${y}`) })
     const pointer = createChartPointer({
@@ -119,10 +120,11 @@ describe('chartPointer', () => {
       handleAt: (x, y) => (Math.hypot(x - 100, y - 100) < 10 ? 'c1' : null),
       toGamma: (x, y) => ({ re: x / 1000, im: -y / 1000 }),
       hover: g => hovers.push(g ? g.re : null),
+      click: (x, y) => clicks.push(`${x},${y}`),
       schedule: frames.schedule,
       now: () => 0,
     })
-    return { pointer, calls, frames, pans, hovers }
+    return { pointer, calls, frames, pans, hovers, clicks }
   }
 
   it('drags from a handle, one preview per frame, and commits the last position on release', () => {
@@ -147,6 +149,19 @@ describe('chartPointer', () => {
     expect(pans).toEqual(['20,10', 'end 20,10'])
     expect(hovers).toEqual([0.3, 0.32, null])
     expect(calls).toEqual([])
+  })
+
+  it('turns a press and release without movement into a click, not a pan', () => {
+    const { pointer, pans, clicks } = setup()
+    pointer.down(400, 300)
+    pointer.move(401, 301)
+    pointer.up()
+    expect(clicks).toEqual(['400,300'])
+    expect(pans).toEqual(['1,1', '0,0', 'end 0,0'])
+    pointer.down(400, 300)
+    pointer.move(420, 300)
+    pointer.up()
+    expect(clicks).toEqual(['400,300'])
   })
 
   it('ignores other buttons and cancels a drag without committing', () => {
