@@ -29,6 +29,14 @@ export const BENCH_MODULES: BenchModule[] = [
       m.printLiveBench(await m.runLiveBench())
     },
   },
+  {
+    name: 'drag',
+    needs: 'a build (bash scripts/build.sh) and /usr/bin/chromium',
+    run: async () => {
+      const m = await import('./drag')
+      m.printDragBench(await m.runDragBench())
+    },
+  },
 ]
 
 async function main(): Promise<void> {
