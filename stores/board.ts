@@ -4,7 +4,7 @@
 import { acceptHMRUpdate, defineStore } from 'pinia'
 import { computed, ref } from 'vue'
 import {
-  gammaOf, nearestStandard, returnLossDb, sweep, trace, type Complex,
+  gammaOf, nearestStandard, returnLossDb, sweep, trace, withDefaultQ, type Complex,
 } from '#shared/rf'
 import {
   DEFAULT_SETTINGS,
@@ -39,7 +39,7 @@ function messageOf(error: unknown): string {
 }
 
 /** The ladder with every lumped part set to its nearest value of `series`. */
-function snapped<E extends ElementJson>(elements: readonly E[], series: Exclude<SnapSeries, 'none'>): E[] {
+export function snapped<E extends ElementJson>(elements: readonly E[], series: Exclude<SnapSeries, 'none'>): E[] {
   return elements.map(e =>
     (e.kind === 'L' || e.kind === 'C' || e.kind === 'R') ? { ...e, value: nearestStandard(e.value, series) } : e)
 }
@@ -62,6 +62,8 @@ export const useBoardStore = defineStore('board', () => {
   const draft = ref<DragDraft | null>(null)
   const preview = ref<BoardElement[] | null>(null)
   const lastError = ref<string | null>(null)
+  /** Monte Carlo end points at the design frequency (impedances, Ω) for the chart; null when none. */
+  const cloud = ref<Complex[] | null>(null)
   const loadedQ = ref(3)
 
   // ---- view toggles (the chart reads these) ----
@@ -91,8 +93,11 @@ export const useBoardStore = defineStore('board', () => {
   const measuredRange = computed(() => measuredCoverage(measuredIds.value, measured.files))
   /** Blocks whose data has not arrived yet are left out until it does (isMeasuredPending says so). */
   function computable<E extends ElementJson>(ladder: readonly E[]): E[] {
-    return ladder.filter(e => e.kind !== 'block' || measured.files[e.uploadId] !== undefined)
+    // The board's default Q goes to every L and C without its own, in every computation.
+    return withDefaultQ(ladder.filter(e => e.kind !== 'block' || measured.files[e.uploadId] !== undefined), settings.value.defaultQ)
   }
+  /** The ladder as every analysis reads it: draft, default Q and line fRef applied, pending blocks left out. */
+  const analysisLadder = computed(() => withReferenceFrequency(computable(effectiveElements.value), frequencyHz.value))
 
   const loadZ = computed<Complex>(() => terminalImpedance(settings.value.load, frequencyHz.value, z0.value, measured.files))
   const sourceZ = computed<Complex>(() => terminalImpedance(settings.value.source, frequencyHz.value, z0.value, measured.files))
@@ -213,6 +218,7 @@ export const useBoardStore = defineStore('board', () => {
     selectedId.value = null
     draft.value = null
     preview.value = null
+    cloud.value = null
     lastError.value = null
     if (options.live) {
       // The live provider fills an empty document by syncing with the server's copy; a document
@@ -368,6 +374,17 @@ export const useBoardStore = defineStore('board', () => {
     preview.value = null
     return edit(() => { boardDoc.replaceLadder(ladder) })
   }
+  /** The band verdict of any ladder (a what-if), computed as the board's own band is. */
+  function bandVerdictOf(ladder: readonly ElementJson[]) {
+    return verdictOf(bandFrequencies.value, returnLossAcrossBand(gammaAcrossBand(sweepOf(ladder))), settings.value.spec)
+  }
+  /** Sets every L, C and R to its nearest value of `series` (default: the parts series), as one undo step. */
+  function snapAll(series: Exclude<SnapSeries, 'none'> = partsSeries.value): string | null {
+    return edit(() => { boardDoc.replaceLadder(snapped(elements.value, series)) })
+  }
+  function setCloud(points: Complex[] | null) {
+    cloud.value = points
+  }
   function setLoadedQ(q: number) {
     if (Number.isFinite(q) && q > 0) loadedQ.value = q
   }
@@ -390,15 +407,15 @@ export const useBoardStore = defineStore('board', () => {
     z0, frequencyHz, effectiveElements, loadZ, sourceZ, goal, reference,
     traceAtDesign, endPoint, endpointReadout, endpointChartGamma,
     measuredIds, isMeasuredPending, measuredRange, bandOutsideHz,
-    bandFrequencies, bandLoadZ, bandSweep, bandGamma, bandReturnLossDb, bandVerdict,
+    bandFrequencies, bandLoadZ, bandReferences, bandSweep, bandGamma, bandReturnLossDb, bandVerdict,
     partsSeries, snappedElements, snappedBandGamma, snappedBandReturnLossDb, snappedBandVerdict, partsList, bandPlot,
-    solutions, solveNotes, previewTrace,
+    solutions, solveNotes, previewTrace, analysisLadder, cloud,
     // actions
     openBoard, closeBoard, applySnapshot, setHistory,
     addElement, addFromPalette, removeElement, moveElement, updateElement, setLocked, setElementField, setElementQ, select,
     beginDrag, dragTo, commitDrag, cancelDrag,
     updateSettings, setTerminal, setSettingsField, setTerminalField, setTerminalKind, setTerminalTopology,
-    setPreview, applySolution, setLoadedQ,
+    setPreview, applySolution, setLoadedQ, snapAll, setCloud, bandVerdictOf,
     undo, redo,
   }
 })

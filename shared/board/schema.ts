@@ -18,6 +18,11 @@ const lumpedFields = {
   value: positive,
   q: positive.optional(),
   tolerance: nonNegative.refine(v => v < 1, 'must be a fraction below 1').optional(),
+  /** An absolute tolerance in SI units (e.g. 0.1e-12 for ±0.1 pF); the wider of the two applies. */
+  toleranceAbs: positive.optional(),
+  /** Ratings (RMS): the voltage across and current through the part it is made for. */
+  vRatingV: positive.optional(),
+  iRatingA: positive.optional(),
 }
 export const LumpedElementSchema = z.object({ kind: z.enum(['L', 'C', 'R']), ...lumpedFields })
 export const LineElementSchema = z.object({
@@ -97,6 +102,13 @@ export const BandSpecSchema = z.object({
   f2Hz: frequencyHz,
 }).refine(s => s.f1Hz < s.f2Hz, 'f1Hz must be below f2Hz')
 
+export const DefaultQSchema = z.object({
+  L: positive.refine(v => v <= 1e5, 'must be at most 100000').optional(),
+  C: positive.refine(v => v <= 1e5, 'must be at most 100000').optional(),
+})
+/** Typical Q of small RF chip parts, offered when a board has no defaults yet (common practice). */
+export const TYPICAL_PART_Q = { L: 40, C: 200 } as const
+
 /** One field schema per key of getMap('board'): the reader checks each key on its own. */
 export const SETTINGS_FIELDS = {
   schemaVersion: z.literal(SCHEMA_VERSION),
@@ -109,6 +121,11 @@ export const SETTINGS_FIELDS = {
   source: TerminalSchema,
   spec: BandSpecSchema,
   snapSeries: z.enum(SNAP_SERIES),
+  // Optional keys, added later: an older document simply lacks them (the reader reports nothing).
+  /** Q given to L and C parts that have none of their own; absent, such parts are lossless. */
+  defaultQ: DefaultQSchema.optional(),
+  /** Available power of the source (W) for the stress figures. */
+  sourcePowerW: positive.refine(v => v <= 1e6, 'must be at most 1 MW').optional(),
 }
 export type SettingsKey = keyof typeof SETTINGS_FIELDS
 

@@ -44,6 +44,7 @@ function readSettings(map: Y.Map<unknown>, problems: string[]): BoardSettings {
     const raw = map.get(key)
     const fallback = DEFAULT_SETTINGS[key]
     if (raw === undefined) {
+      if (fallback === undefined) continue // an optional key: absent is fine
       problems.push(`settings.${key} is missing; using ${JSON.stringify(fallback)}`)
       settings[key] = structuredClone(fallback)
       continue
@@ -51,8 +52,8 @@ function readSettings(map: Y.Map<unknown>, problems: string[]): BoardSettings {
     const parsed = SETTINGS_FIELDS[key].safeParse(raw instanceof Y.AbstractType ? raw.toJSON() : raw)
     if (parsed.success) settings[key] = parsed.data
     else {
-      problems.push(`settings.${key} is invalid (${issueText(parsed.error)}); using ${JSON.stringify(fallback)}`)
-      settings[key] = structuredClone(fallback)
+      problems.push(`settings.${key} is invalid (${issueText(parsed.error)}); ${fallback === undefined ? 'ignored' : `using ${JSON.stringify(fallback)}`}`)
+      if (fallback !== undefined) settings[key] = structuredClone(fallback)
     }
   }
   const result = settings as BoardSettings

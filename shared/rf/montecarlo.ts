@@ -27,6 +27,7 @@ import { RfInputError, describe, requireFinite, requirePositive } from './errors
 import { requireFrequency, validateElements } from './elements'
 import { applyElementToPoints, createPoints, setPoint } from './points'
 import type { Reference } from './gamma'
+import { applyAbcdToPoints, blockAbcd, type Abcd, type BlockLookup } from './twoport'
 
 export type ToleranceDistribution = 'uniform' | 'gaussian'
 
@@ -53,6 +54,8 @@ export type MonteCarloInput = {
   readonly distribution?: ToleranceDistribution
   /** How many trials' end points to keep for the cloud (default 500). */
   readonly cloudSize?: number
+  /** Measured two-port data for `block` elements, by upload id (not varied). */
+  readonly blocks?: BlockLookup
 }
 
 export type MonteCarloResult = {
@@ -153,6 +156,9 @@ export function createMonteCarlo(input: MonteCarloInput): MonteCarloRun {
   const p = createPoints(m + 1)
   // Reused mutable copies: only `value` changes from trial to trial.
   const trialElements = elements.map(e => ({ ...e })) as Element[]
+  // Measured blocks do not vary: their chain matrices are taken once, at the run's frequencies.
+  const blockMatrices: (Abcd[] | null)[] = elements.map((e, i) =>
+    e.kind === 'block' ? blockAbcd(e, input.blocks, freqs, { path: `elements[${i}]` }) : null)
   const variations: Variation[] = []
   trialElements.forEach((e, i) => {
     const h = toleranceHalfWidth(elements[i]!)
@@ -181,7 +187,11 @@ export function createMonteCarlo(input: MonteCarloInput): MonteCarloRun {
   /** Sweeps the current values; returns the worst |Γ|² over points 0…m−1. */
   function sweepOnce(): number {
     p.aRe.set(start.aRe); p.aIm.set(start.aIm); p.bRe.set(start.bRe); p.bIm.set(start.bIm)
-    for (let e = 0; e < trialElements.length; e++) applyElementToPoints(p, trialElements[e]!, freqs)
+    for (let e = 0; e < trialElements.length; e++) {
+      const matrices = blockMatrices[e]
+      if (matrices) applyAbcdToPoints(p, matrices)
+      else applyElementToPoints(p, trialElements[e]!, freqs)
+    }
     const { aRe, aIm, bRe, bIm } = p
     let worstG2 = 0
     for (let j = 0; j < m; j++) {
