@@ -37,6 +37,14 @@ export const BENCH_MODULES: BenchModule[] = [
       m.printDragBench(await m.runDragBench())
     },
   },
+  {
+    name: 'montecarlo',
+    needs: 'a build (bash scripts/build.sh) and /usr/bin/chromium for the worker part',
+    run: async () => {
+      const m = await import('./montecarlo')
+      m.printMonteCarloBench(await m.runMonteCarloBench())
+    },
+  },
 ]
 
 async function main(): Promise<void> {

@@ -25,7 +25,8 @@ import type { Complex, Element } from './types'
 import { asComplex, divideInto } from './complex'
 import { RfInputError, describe, requireFinite, requirePositive } from './errors'
 import { requireFrequency, validateElements } from './elements'
-import { applyElementToPoints, createPoints, setPoint } from './points'
+import { applyElementToPoints, createPoints, setPoint, type PointBuffer } from './points'
+import { isUniformGrid } from './angles'
 import type { Reference } from './gamma'
 import { applyAbcdToPoints, blockAbcd, type Abcd, type BlockLookup } from './twoport'
 
@@ -138,27 +139,33 @@ export function createMonteCarlo(input: MonteCarloInput): MonteCarloRun {
   if (inSpec.length === 0) throw new RfInputError('spec', 'no band frequency falls between f1Hz and f2Hz')
   const designHz = requireFrequency(input.design?.frequencyHz, 'design.frequencyHz')
 
-  // Points 0…m−1: the in-spec band frequencies; point m: the design frequency (the cloud).
+  // The in-spec band frequencies are scored; the design frequency (the cloud) is a buffer of its own,
+  // so an evenly spaced band stays evenly spaced for the kernel.
   const m = inSpec.length
-  const freqs = new Float64Array(m + 1)
-  const start = createPoints(m + 1)
-  const refRe = new Float64Array(m + 1)
-  const refIm = new Float64Array(m + 1)
+  const freqs = new Float64Array(m)
+  const start = createPoints(m)
+  const refRe = new Float64Array(m)
+  const refIm = new Float64Array(m)
   inSpec.forEach((k, j) => {
     freqs[j] = f[k]!
     setPoint(start, j, asComplex(loads[k], `load[${k}]`, true))
     ;[refRe[j], refIm[j]] = referenceParts(refs[k]!, Array.isArray(input.reference) ? `reference[${k}]` : 'reference')
   })
-  freqs[m] = designHz
-  setPoint(start, m, asComplex(input.design.load, 'design.load', true))
-  ;[refRe[m], refIm[m]] = referenceParts(input.design.reference, 'design.reference')
+  const designFreqs = Float64Array.of(designHz)
+  const designStart = createPoints(1)
+  setPoint(designStart, 0, asComplex(input.design.load, 'design.load', true))
+  referenceParts(input.design.reference, 'design.reference')
+  const uniformGrid = isUniformGrid(freqs)
 
-  const p = createPoints(m + 1)
+  const p = createPoints(m)
+  const q = createPoints(1)
   // Reused mutable copies: only `value` changes from trial to trial.
   const trialElements = elements.map(e => ({ ...e })) as Element[]
   // Measured blocks do not vary: their chain matrices are taken once, at the run's frequencies.
   const blockMatrices: (Abcd[] | null)[] = elements.map((e, i) =>
     e.kind === 'block' ? blockAbcd(e, input.blocks, freqs, { path: `elements[${i}]` }) : null)
+  const designBlockMatrices: (Abcd[] | null)[] = elements.map((e, i) =>
+    e.kind === 'block' ? blockAbcd(e, input.blocks, designFreqs, { path: `elements[${i}]`, range: 'nearest' }) : null)
   const variations: Variation[] = []
   trialElements.forEach((e, i) => {
     const h = toleranceHalfWidth(elements[i]!)
@@ -184,14 +191,21 @@ export function createMonteCarlo(input: MonteCarloInput): MonteCarloRun {
     }
   }
 
-  /** Sweeps the current values; returns the worst |Γ|² over points 0…m−1. */
-  function sweepOnce(): number {
-    p.aRe.set(start.aRe); p.aIm.set(start.aIm); p.bRe.set(start.bRe); p.bIm.set(start.bIm)
-    for (let e = 0; e < trialElements.length; e++) {
-      const matrices = blockMatrices[e]
-      if (matrices) applyAbcdToPoints(p, matrices)
-      else applyElementToPoints(p, trialElements[e]!, freqs)
+  const last = trialElements.length - 1
+  /** Runs the ladder with the current values over `buffer` (reset to `from` first). */
+  function applyLadder(buffer: PointBuffer, from: PointBuffer, at: Float64Array, blocks: (Abcd[] | null)[], uniform: boolean): void {
+    buffer.aRe.set(from.aRe); buffer.aIm.set(from.aIm); buffer.bRe.set(from.bRe); buffer.bIm.set(from.bIm)
+    for (let e = 0; e <= last; e++) {
+      const matrices = blocks[e]
+      if (matrices) applyAbcdToPoints(buffer, matrices)
+      // Rescaling every fourth element (and after the last) is enough, as in sweep.
+      else applyElementToPoints(buffer, trialElements[e]!, at, { uniformGrid: uniform, rescale: e % 4 === 3 || e === last })
     }
+  }
+
+  /** Sweeps the current values; returns the worst |Γ|² over the in-spec points. */
+  function sweepOnce(): number {
+    applyLadder(p, start, freqs, blockMatrices, uniformGrid)
     const { aRe, aIm, bRe, bIm } = p
     let worstG2 = 0
     for (let j = 0; j < m; j++) {
@@ -228,7 +242,8 @@ export function createMonteCarlo(input: MonteCarloInput): MonteCarloRun {
       worst[t] = returnLossOf(g2)
       if (g2 <= maxGamma2) passes++
       if (t < cloudSize) {
-        divideInto(p.aRe[m]!, p.aIm[m]!, p.bRe[m]!, p.bIm[m]!, quotient)
+        applyLadder(q, designStart, designFreqs, designBlockMatrices, false)
+        divideInto(q.aRe[0]!, q.aIm[0]!, q.bRe[0]!, q.bIm[0]!, quotient)
         cloudRe[t] = quotient[0]!
         cloudIm[t] = quotient[1]!
       }
