@@ -1,8 +1,9 @@
 // A measured antenna file through the board page in Chromium: the file chooser, the dotted trace
 // on the chart, the band plot from the measured points, markers, a refused file with its line,
 // and the printable report (screenshots in tests/artifacts/ for a person to look at).
-// Reference files: ../shared/reference/touchstone (invented data; errors as in its expected.json).
+// Reference files: tests/fixtures/reference/touchstone (invented data; errors as in its expected.json).
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
+import { REFERENCE_ROOT } from '../support/reference'
 import type { Browser, Page } from 'playwright-core'
 import { mkdirSync } from 'node:fs'
 import path from 'node:path'
@@ -11,7 +12,7 @@ import { launchChromium } from '../support/browser'
 
 const baseUrl = inject('baseUrl')
 const ARTIFACTS = 'tests/artifacts'
-const TOUCHSTONE_DIR = path.resolve('..', 'shared', 'reference', 'touchstone')
+const TOUCHSTONE_DIR = path.resolve(REFERENCE_ROOT, 'touchstone')
 const TEMPLATE_NAME = '915 MHz chip antenna, series L + shunt C'
 const MEASURED_RGB = [0x6b, 0x3f, 0xa0] // shared/board/measured-style.ts MEASURED_HUE
 let browser: Browser

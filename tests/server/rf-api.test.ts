@@ -1,7 +1,8 @@
 // The RF computation routes against the built server: each answer equals the shared/rf function
 // called here on the same arguments; bad input gets 400 naming the field; the Touchstone upload
-// gets the reference files (../shared/reference/touchstone) and an oversized body.
+// gets the reference files (tests/fixtures/reference/touchstone) and an oversized body.
 import { readFileSync } from 'node:fs'
+import { REFERENCE_ROOT } from '../support/reference'
 import { request } from 'node:http'
 import path from 'node:path'
 import { describe, expect, inject, it } from 'vitest'
@@ -11,7 +12,7 @@ import {
 } from '../../shared/rf/index'
 
 const baseUrl = inject('baseUrl')
-const REFERENCE_DIR = path.resolve('..', 'shared', 'reference', 'touchstone')
+const REFERENCE_DIR = path.resolve(REFERENCE_ROOT, 'touchstone')
 const MALFORMED_FILES = (JSON.parse(readFileSync(path.join(REFERENCE_DIR, 'expected.json'), 'utf8')) as
   { malformed: { file: string, error: { line: number | null, message: string } }[] }).malformed
 const MB = 1024 * 1024

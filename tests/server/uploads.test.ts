@@ -1,14 +1,15 @@
 // Measured uploads through the API: every reference Touchstone file, the size limit on the bytes
-// received, and who may upload and read. Expected values: ../shared/reference/touchstone/expected.json
+// received, and who may upload and read. Expected values: tests/fixtures/reference/touchstone/expected.json
 // (invented data read back by scikit-rf 0.15.4 and an independent strict reader).
 import { readFileSync, readdirSync } from 'node:fs'
+import { REFERENCE_ROOT } from '../support/reference'
 import http from 'node:http'
 import path from 'node:path'
 import { beforeAll, describe, expect, inject, it } from 'vitest'
 import { DEMO_USERS, signIn } from '../support/auth'
 
 const baseUrl = inject('baseUrl')
-const TOUCHSTONE_DIR = path.resolve('..', 'shared', 'reference', 'touchstone')
+const TOUCHSTONE_DIR = path.resolve(REFERENCE_ROOT, 'touchstone')
 const SOURCE = 'reference touchstone/expected.json (scikit-rf 0.15.4 and a strict reader)'
 const BOARD = 'kestrel-915-antenna'
 const MAX_BYTES = 20 * 1024 * 1024

@@ -1,7 +1,8 @@
 // A measured .s1p as a board's load: impedance from S11, coverage of the band, the design
-// frequency outside the file. Reference: ../shared/reference/touchstone (invented antenna model
+// frequency outside the file. Reference: tests/fixtures/reference/touchstone (invented antenna model
 // R = 42 Ω, L = 28 nH, C = 1.1 pF in series, 0.2 pF across; read back by scikit-rf 0.15.4).
 import { readFileSync } from 'node:fs'
+import { REFERENCE_ROOT } from '../../support/reference'
 import path from 'node:path'
 import { describe, expect, it } from 'vitest'
 import { parseTouchstone, rlcImpedance, trace, type Complex } from '../../../shared/rf/index'
@@ -9,7 +10,7 @@ import { measuredCoverage, measuredImpedanceAt, measuredImpedances, measuredUplo
 import { designedNetworkS2p } from '../../../shared/board/exports'
 import { DEFAULT_SETTINGS } from '../../../shared/board/schema'
 
-const DIR = path.resolve('..', 'shared', 'reference', 'touchstone')
+const DIR = path.resolve(REFERENCE_ROOT, 'touchstone')
 const read = (file: string) => parseTouchstone(readFileSync(path.join(DIR, file), 'utf8'), file)
 
 /** The invented antenna model of the reference files, as a ladder: series R-L-C then 0.2 pF across. */

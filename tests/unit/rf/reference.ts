@@ -1,6 +1,7 @@
-// Reading the team's reference data (../shared/reference/cases.json, outside the repo) and the
+// Reading the team's reference data (tests/fixtures/reference/cases.json, outside the repo) and the
 // tolerance helpers the RF tests share.
 import { readFileSync } from 'node:fs'
+import { REFERENCE_ROOT } from '../../support/reference'
 import path from 'node:path'
 import { expect } from 'vitest'
 import { OPEN, isInfinite, rlcImpedance, trace, type Complex, type Element } from '../../../shared/rf/index'
@@ -28,7 +29,7 @@ let cached: RefCase[] | undefined
 /** Every case of cases.json (read at run time from the team's shared folder). */
 export function referenceCases(): RefCase[] {
   if (!cached) {
-    const file = path.resolve('..', 'shared', 'reference', 'cases.json')
+    const file = path.resolve(REFERENCE_ROOT, 'cases.json')
     cached = (JSON.parse(readFileSync(file, 'utf8')) as { cases: RefCase[] }).cases
   }
   return cached

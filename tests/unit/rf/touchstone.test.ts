@@ -1,7 +1,8 @@
-// Touchstone reading and writing. The reference files (../shared/reference/touchstone, outside the
+// Touchstone reading and writing. The reference files (tests/fixtures/reference/touchstone, outside the
 // repo) are checked against their expected.json; the v2 files below are our own invented data,
 // written inline, with the expected values worked out here from the numbers in the text.
 import { readFileSync, readdirSync } from 'node:fs'
+import { REFERENCE_ROOT } from '../../support/reference'
 import path from 'node:path'
 import { describe, expect, it } from 'vitest'
 import seedrandom from 'seedrandom'
@@ -11,7 +12,7 @@ import {
 } from '../../../shared/rf/index'
 import { complexError } from './reference'
 
-const REFERENCE_DIR = path.resolve('..', 'shared', 'reference', 'touchstone')
+const REFERENCE_DIR = path.resolve(REFERENCE_ROOT, 'touchstone')
 const SOURCE = 'reference touchstone/expected.json, read back by scikit-rf 0.15.4 and an independent strict reader'
 
 type Pair = [number, number]

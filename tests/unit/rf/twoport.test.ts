@@ -1,5 +1,6 @@
 // Two-port conversions, measured blocks in a ladder and the ladder exported as a .s2p.
 import { readFileSync } from 'node:fs'
+import { REFERENCE_ROOT } from '../../support/reference'
 import path from 'node:path'
 import { describe, expect, it } from 'vitest'
 import seedrandom from 'seedrandom'
@@ -9,7 +10,7 @@ import {
 } from '../../../shared/rf/index'
 import { complexError } from './reference'
 
-const TOUCHSTONE_DIR = path.resolve('..', 'shared', 'reference', 'touchstone')
+const TOUCHSTONE_DIR = path.resolve(REFERENCE_ROOT, 'touchstone')
 const readReference = (file: string) => parseTouchstone(readFileSync(path.join(TOUCHSTONE_DIR, file), 'utf8'), file)
 
 function expectWithin(actual: Complex, expected: Complex, rel: number, label: string) {
