@@ -8,7 +8,7 @@
  * zero-length lines, stubs of 0° or 90° and shunt elements on an open are all ordinary finite
  * arithmetic, with no tan() poles and no big-number stand-ins. Only one division per point is
  * done, when the result is read. Source of the element maps: the ABCD parameters of series and
- * shunt impedances and of a lossless line (Pozar, Microwave Engineering, table 4.1, recalled from
+ * shunt impedances and of a lossless line (standard two-port tables, common practice; recalled from
  * memory and checked against the reference cases).
  *
  * Hot loop rules: one loop per element kind with the per-element constants hoisted, no object per

@@ -7,8 +7,8 @@
  * at port 1 with Z_L on port 2 is Z_in = (A·Z_L + B)/(C·Z_L + D). A measured .s2p placed in the
  * ladder therefore has its port 1 towards the source.
  *
- * Conversions (the standard chain-matrix relations for equal real port references Z0; Pozar,
- * Microwave Engineering, table 4.2 — recalled from memory, checked here by the round trip and by
+ * Conversions (the standard chain-matrix relations for equal real port references Z0, common
+ * practice — recalled from memory, checked here by the round trip and by
  * lumped parts in the tests):
  *   A = ((1+S11)(1−S22) + S12·S21)/(2·S21)       B = Z0·((1+S11)(1+S22) − S12·S21)/(2·S21)
  *   C = ((1−S11)(1−S22) − S12·S21)/(2·S21·Z0)    D = ((1−S11)(1+S22) + S12·S21)/(2·S21)
