@@ -4,7 +4,7 @@
  */
 import type { Complex, Element } from '../rf/types'
 import { gammaOf } from '../rf/gamma'
-import { isDraggable } from '../rf/drag'
+import { dragLocus, isDraggable } from '../rf/drag'
 import { hueFor } from '../board/palette'
 import { constantQCircle, mismatchRing, type GammaCircle, type GammaLocus } from './circles'
 import { arcInsideDisk, arcToScreen, type GammaArc, type ScreenArc } from './clip'
@@ -82,7 +82,9 @@ export function buildTraceScene(input: TraceSceneInput): TraceScene {
   const band = gammaPolyline(input.band, z0)
   const handles: GammaHandle[] = []
   elements.forEach((e, i) => {
-    if (isDraggable(e) && !e.locked && gammas[i + 1]) handles.push({ id: e.id, hue: hueFor(e), gamma: gammas[i + 1]! })
+    // No handle where a drag cannot move the point (e.g. a line matched to its own Zc).
+    if (!isDraggable(e) || e.locked || !gammas[i + 1] || !dragLocus(e, trace[i]!, z0, frequencyHz)) return
+    handles.push({ id: e.id, hue: hueFor(e), gamma: gammas[i + 1]! })
   })
   return {
     segments: paths.map((points, i) => ({ id: elements[i]!.id, hue: hueFor(elements[i]!), points })),

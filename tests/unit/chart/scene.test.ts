@@ -77,6 +77,13 @@ describe('buildTraceScene', () => {
     expect(Math.hypot(b.gamma.re - expected.re, b.gamma.im - expected.im)).toBeLessThan(1e-12)
   })
 
+  it('has no handle where a drag cannot move the point (a line matched to its own Zc)', () => {
+    const ladder: SceneElement[] = [{ id: 'm', kind: 'line', z0: 50, deg: 30 }, { id: 'n', kind: 'C', placement: 'shunt', value: 1e-12 }]
+    const matched = trace({ z0: Z0, frequency: F, load: { re: 50, im: 0 }, elements: ladder })
+    const s = buildTraceScene({ elements: ladder, trace: matched, band: [], goal: { re: 50, im: 0 }, preview: null, qArc: null, z0: Z0, frequencyHz: F })
+    expect(s.handles.map(h => h.id)).toEqual(['n'])
+  })
+
   it('puts the goal, the ring through the end point and two Q arcs in the scene', () => {
     expect(Math.hypot(scene.goal.re, scene.goal.im)).toBeLessThan(1e-12)
     expect(scene.ring!.radius).toBeCloseTo(Math.hypot(scene.end.re, scene.end.im), 12)
