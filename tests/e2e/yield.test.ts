@@ -83,7 +83,7 @@ describe('tolerance yield in the browser', () => {
 
   it('cancels a long run within a slice and keeps the board usable', async () => {
     await openBoard('kestrel-915-antenna')
-    await setTrials(200000)
+    await setTrials(1000000)
     await page.locator('[data-testid="yield-run"]').click()
     const before = await watchProgress(1)
     expect(before[before.length - 1]!.status).toBe('running')
@@ -92,13 +92,14 @@ describe('tolerance yield in the browser', () => {
     const last = after[after.length - 1]!
     expect(last.status).toBe('cancelled')
     expect(last.completed).toBeGreaterThan(0)
-    expect(last.completed).toBeLessThan(200000)
+    expect(last.completed).toBeLessThan(1000000)
     // Nothing moves after a cancel.
     await page.waitForTimeout(300)
     const still = await page.evaluate(() => (window as any).__gammaboardMonteCarlo.progress())
     expect(still).toEqual(last)
     await expect(page.locator('[data-testid="yield-progress-text"]').textContent()).resolves.toContain('cancelled')
     await page.locator('[data-testid="yield-run"]').waitFor()
+    await page.locator('[data-testid="yield-panel"]').scrollIntoViewIfNeeded()
     await page.screenshot({ path: `${ARTIFACTS}/yield-cancelled.png` })
   })
 })
