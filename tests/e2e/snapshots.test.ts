@@ -52,7 +52,9 @@ describe('snapshots in the browser', () => {
     expect(await page.locator('[data-testid="boards-table"] tbody tr[data-board-id]').count()).toBeGreaterThanOrEqual(3)
     await page.screenshot({ path: `${ARTIFACTS}/workspace-home.png`, fullPage: true })
 
-    await page.locator('[data-testid="template-gallery"] button', { hasText: 'New board from this' }).first().click()
+    // Other tests in the run publish templates too: take the seeded one by its name.
+    await page.locator('[data-testid="template-gallery"] li', { hasText: '915 MHz chip antenna, series L + shunt C' })
+      .first().locator('button', { hasText: 'New board from this' }).click()
     const name = `Field trial antenna ${Date.now()}`
     await page.fill('#field-boardName', name)
     await page.locator('[data-testid="new-board-form"] button[type="submit"]').click()
