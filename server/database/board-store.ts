@@ -4,12 +4,17 @@ import { randomUUID } from 'node:crypto'
 import * as Y from 'yjs'
 import type { Sequelize, Transaction } from 'sequelize'
 import { modelsFor, type BoardInstance, type BoardSummary } from '../models'
-import { DEFAULT_SETTINGS, type BoardContent, type BoardSnapshot } from '../../shared/board/schema'
+import { DEFAULT_SETTINGS, TYPICAL_PART_Q, type BoardContent, type BoardSnapshot } from '../../shared/board/schema'
 import { applyBoardState, boardFromState, createBoardDoc, encodeBoardState } from '../../shared/board/ydoc'
 import { replaceBoard } from '../../shared/board/ops'
 import { liveBridge } from './live-bridge'
 
-export const BLANK_BOARD: BoardContent = { settings: DEFAULT_SETTINGS, elements: [] }
+/**
+ * A new blank board. It starts with finite Q (typical small RF chip parts: L 40, C 200 — common
+ * practice) so losses show from the first element; DEFAULT_SETTINGS stays lossless because it also
+ * fills keys an older document lacks, and those boards keep their values.
+ */
+export const BLANK_BOARD: BoardContent = { settings: { ...DEFAULT_SETTINGS, defaultQ: { ...TYPICAL_PART_Q } }, elements: [] }
 
 export function summarize(snapshot: BoardContent): BoardSummary {
   const { z0, frequencyHz, bandStartHz, bandStopHz, bandPoints } = snapshot.settings
