@@ -2,7 +2,7 @@
 // selection, a drag draft, a solver preview, chart toggles) and computed RF results. Edits go
 // through useBoardDoc (which owns the document); nothing here holds a Y.Doc.
 import { acceptHMRUpdate, defineStore } from 'pinia'
-import { computed, ref } from 'vue'
+import { computed, ref, shallowRef, watch } from 'vue'
 import {
   gammaOf, nearestStandard, returnLossDb, sweep, trace, withDefaultQ, type Complex,
 } from '#shared/rf'
@@ -44,6 +44,9 @@ export function snapped<E extends ElementJson>(elements: readonly E[], series: E
     (e.kind === 'L' || e.kind === 'C' || e.kind === 'R') ? { ...e, value: nearestStandard(e.value, series) } : e)
 }
 
+/** How often secondary results follow a drag (ms); see settledElements. */
+const SETTLED_EVERY_MS = 120
+
 export const useBoardStore = defineStore('board', () => {
   // ---- document snapshot (read from the Y.Doc only) ----
   const boardId = ref<string | null>(null)
@@ -84,6 +87,27 @@ export const useBoardStore = defineStore('board', () => {
     return elements.value.map(e => e.id === d.elementId ? withFieldValue(e, mainFieldOf(e.kind), d.value) : e)
   })
 
+  /**
+   * The ladder the secondary panels read (stress, losses, parts list, snapped band, Monte Carlo inputs).
+   * During a drag it follows the draft at most every SETTLED_EVERY_MS so one pointer move stays
+   * inside a 60 Hz frame; the chart, the dragged tile, the end-point readout and the band plot's live
+   * curve read effectiveElements and follow every move. Outside a drag it is effectiveElements itself.
+   */
+  const settledElements = shallowRef<BoardElement[]>(elements.value)
+  let settleTimer: ReturnType<typeof setTimeout> | null = null
+  watch([elements, draft], () => {
+    if (!draft.value) {
+      if (settleTimer) clearTimeout(settleTimer)
+      settleTimer = null
+      settledElements.value = elements.value
+      return
+    }
+    settleTimer ??= setTimeout(() => {
+      settleTimer = null
+      settledElements.value = effectiveElements.value
+    }, SETTLED_EVERY_MS)
+  }, { flush: 'sync' })
+
   // ---- measured files (uploads): fetched into the measured store, never into the document ----
   const measured = useMeasuredStore()
   const measuredIds = computed(() => measuredUploadIds(settings.value, elements.value))
@@ -97,7 +121,7 @@ export const useBoardStore = defineStore('board', () => {
     return withDefaultQ(ladder.filter(e => e.kind !== 'block' || measured.files[e.uploadId] !== undefined), settings.value.defaultQ)
   }
   /** The ladder as every analysis reads it: draft, default Q and line fRef applied, pending blocks left out. */
-  const analysisLadder = computed(() => withReferenceFrequency(computable(effectiveElements.value), frequencyHz.value))
+  const analysisLadder = computed(() => withReferenceFrequency(computable(settledElements.value), frequencyHz.value))
 
   const loadZ = computed<Complex>(() => terminalImpedance(settings.value.load, frequencyHz.value, z0.value, measured.files))
   const sourceZ = computed<Complex>(() => terminalImpedance(settings.value.source, frequencyHz.value, z0.value, measured.files))
@@ -156,12 +180,12 @@ export const useBoardStore = defineStore('board', () => {
   /** The series the parts list rounds to: the snap series, or E24 when snapping is off. */
   const partsSeries = computed<Exclude<SnapSeries, 'none'>>(() =>
     settings.value.snapSeries === 'none' ? 'E24' : settings.value.snapSeries)
-  const snappedElements = computed(() => snapped(effectiveElements.value, partsSeries.value))
+  const snappedElements = computed(() => snapped(settledElements.value, partsSeries.value))
   const snappedBandGamma = computed(() => gammaAcrossBand(sweepOf(snappedElements.value)))
   const snappedBandReturnLossDb = computed(() => returnLossAcrossBand(snappedBandGamma.value))
   const snappedBandVerdict = computed(() => verdictOf(bandFrequencies.value, snappedBandReturnLossDb.value, settings.value.spec))
 
-  const partsList = computed(() => partRows(effectiveElements.value, partsSeries.value))
+  const partsList = computed(() => partRows(settledElements.value, partsSeries.value))
 
   /** What the band plot draws: return loss (dB) or |Γ| per frequency, as drawn and as snapped. */
   const bandPlot = computed(() => {
@@ -404,7 +428,7 @@ export const useBoardStore = defineStore('board', () => {
     selectedId, draft, preview, lastError, loadedQ,
     showImpedanceGrid, showAdmittanceGrid, showQArcs, qArcValue, plotQuantity,
     // computed
-    z0, frequencyHz, effectiveElements, loadZ, sourceZ, goal, reference,
+    z0, frequencyHz, effectiveElements, settledElements, loadZ, sourceZ, goal, reference,
     traceAtDesign, endPoint, endpointReadout, endpointChartGamma,
     measuredIds, isMeasuredPending, measuredRange, bandOutsideHz,
     bandFrequencies, bandLoadZ, bandReferences, bandSweep, bandGamma, bandReturnLossDb, bandVerdict,

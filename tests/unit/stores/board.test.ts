@@ -1,4 +1,4 @@
-import { beforeEach, describe, expect, it } from 'vitest'
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
 import { createPinia, setActivePinia } from 'pinia'
 import * as Y from 'yjs'
 import { useBoardStore } from '../../../stores/board'
@@ -230,5 +230,28 @@ describe('finite Q', () => {
     const lossless = store.endPoint
     store.setElementQ('ant-c1', '5')
     expect(store.endPoint).not.toEqual(lossless)
+  })
+})
+
+describe('secondary results during a drag', () => {
+  afterEach(() => { vi.useRealTimers() })
+  const valueOf = (ladder: readonly { id: string }[], id: string) => (ladder.find(e => e.id === id) as { value: number }).value
+
+  it('follow the draft at a lower rate, and exactly on commit', () => {
+    vi.useFakeTimers()
+    const before = valueOf(store.settledElements, 'ant-c1')
+    expect(store.beginDrag('ant-c1')).toBe(true)
+    store.dragTo(5.6e-12) // an E12 value: the antenna board snaps to E12
+    // The live ladder has the draft at once; the parts list still shows the committed value.
+    expect(valueOf(store.effectiveElements, 'ant-c1')).toBeCloseTo(5.6e-12, 20)
+    expect(valueOf(store.settledElements, 'ant-c1')).toBe(before)
+    expect(store.partsList.find(r => r.id === 'ant-c1')?.exactValue).toBe(before)
+    vi.advanceTimersByTime(200)
+    expect(valueOf(store.settledElements, 'ant-c1')).toBeCloseTo(5.6e-12, 20)
+    store.dragTo(6.8e-12)
+    store.commitDrag()
+    // On release nothing lags: every panel reads the committed ladder.
+    expect(valueOf(store.settledElements, 'ant-c1')).toBe(valueOf(store.elements, 'ant-c1'))
+    expect(store.settledElements).toBe(store.elements)
   })
 })
