@@ -45,6 +45,11 @@ export async function acceptInvitation(token: string, user: UserInstance) {
   const sequelize = await useDb()
   const { Invitation, Membership } = await useModels()
   return sequelize.transaction(async (transaction) => {
+    // The link is for the address it was mailed to: someone holding a forwarded link cannot join.
+    const open = await Invitation.findOne({ where: { tokenHash: hashToken(token), acceptedAt: null }, transaction })
+    if (open && open.email.toLowerCase() !== user.email.toLowerCase()) {
+      throw createError({ statusCode: 403, message: `This invitation was sent to another address: sign in as ${open.email} to accept it.` })
+    }
     // Marking it used first, guarded on "still unused", makes two simultaneous accepts use it once.
     const [used] = await Invitation.update(
       { acceptedAt: new Date(), acceptedBy: user.id },

@@ -214,6 +214,20 @@ describe('invitations and membership', () => {
     expect((await api('DELETE', `/api/workspaces/${admin.workspace}/members/${colleague.id}`, { cookie: colleague.cookie })).status).toBe(200)
   })
 
+  it('refuses an invitation accepted by someone other than the invited address, and keeps it open for them', async () => {
+    const admin = await signUp('Dov')
+    const invitedEmail = uniqueEmail('invited')
+    const { token } = await invite(admin, invitedEmail, 'designer')
+    const bystander = await signUp('Bystander')
+    const refused = await api('POST', `/api/invitations/${token}/accept`, { cookie: bystander.cookie })
+    expect(refused.status).toBe(403)
+    expect(refused.json.message).toMatch(/sent to another address/)
+    expect((await api('GET', `/api/workspaces/${admin.workspace}`, { cookie: bystander.cookie })).status).toBe(404)
+    // The invited person can still use the link.
+    const invited = await signUp('Invited', invitedEmail)
+    expect((await api('POST', `/api/invitations/${token}/accept`, { cookie: invited.cookie })).status).toBe(200)
+  })
+
   it('refuses an expired invitation', async () => {
     const admin = await signUp('Dee')
     const email = uniqueEmail('slow')
