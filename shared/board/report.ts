@@ -1,8 +1,7 @@
-// The figures of the printable board report: the terminals in words and the stress on each part
-// at the design frequency for a chosen available source power.
-import { elementStress, formatEng, type BlockLookup, type Complex, type ElementStress } from '../rf'
+// The printable board report's words for the inputs (stress comes from stores/realParts.ts).
+import { formatEng } from '../rf'
 import { formatComplex } from './format'
-import type { BoardElement, Terminal } from './schema'
+import type { Terminal } from './schema'
 
 /** A terminal as one line of text ("42 − j18 Ω", "series R-L-C …", "measured: antenna.s1p"). */
 export function describeTerminal(terminal: Terminal, fileNames: Readonly<Record<string, string>>): string {
@@ -18,23 +17,5 @@ export function describeTerminal(terminal: Terminal, fileNames: Readonly<Record<
     }
     case 'measured': return `measured: ${fileNames[terminal.uploadId] ?? terminal.uploadId}`
     default: return 'matched Z0 source'
-  }
-}
-
-/** Stress per element at the design frequency, or the reason it cannot be computed. */
-export function stressAtDesign(input: {
-  frequencyHz: number
-  load: Complex
-  source: Complex
-  powerW: number
-  elements: readonly BoardElement[]
-  blocks?: BlockLookup
-}): { rows: ElementStress[], problem: string | null } {
-  try {
-    const { elements } = elementStress({ frequency: input.frequencyHz, load: input.load, source: input.source, powerW: input.powerW, elements: input.elements, blocks: input.blocks })
-    return { rows: elements, problem: null }
-  }
-  catch (error) {
-    return { rows: [], problem: error instanceof Error ? error.message : String(error) }
   }
 }

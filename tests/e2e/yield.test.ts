@@ -134,5 +134,15 @@ describe('stress at the source power in the browser', () => {
     await page.locator('[data-testid="cautions-note"]').waitFor()
     await page.locator('[data-testid="stress-panel"]').scrollIntoViewIfNeeded()
     await page.screenshot({ path: `${ARTIFACTS}/stress-flagged.png` })
+
+    // The printed report shows the same power, the same figure and the same flag.
+    const boardVolts = (await page.locator('[data-testid="part-v-ant-c1"]').textContent())!
+    await page.locator('[data-testid="open-report"]').click()
+    await page.locator('[data-testid="report-over-rating"]').waitFor()
+    expect(await page.locator('[data-testid="report-over-rating"]').innerText()).toMatch(/shunt C/i)
+    const ladderText = await page.locator('[data-testid="report-ladder"]').innerText()
+    expect(ladderText).toMatch(/for 1 W \(30(\.0+)? dBm\)/)
+    expect(ladderText).toContain(Number(boardVolts.replace(/[^\d.]/g, '')).toPrecision(3).slice(0, 3))
+    await page.screenshot({ path: `${ARTIFACTS}/report-over-rating.png`, fullPage: true })
   })
 })
