@@ -10,6 +10,8 @@ export interface LiveBridge {
   editBoard<T>(boardId: string, edit: (doc: Y.Doc) => T): Promise<T>
   /** A member's role changed (null: removed); their open sockets are refreshed or closed. */
   refreshRole?(userId: number, workspaceId: number, role: Role | null): unknown
+  /** Who has the board open right now (name and colour from their accounts). */
+  presentIn?(boardId: string): { userId: number, name: string, colour: string }[]
 }
 
 let bridge: LiveBridge | undefined

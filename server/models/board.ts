@@ -38,6 +38,9 @@ export function defineBoard(sequelize: Sequelize) {
 }
 
 export interface BoardListEntry extends BoardSummary { id: string, name: string, updatedAt: string }
+/** Someone who has a board open now (server-stamped name and colour; never stored). */
+export interface BoardPresence { userId: number, name: string, colour: string }
+export type BoardListItem = BoardListEntry & { present: BoardPresence[] }
 
 export function serializeBoardListEntry(board: BoardRow): BoardListEntry {
   const summary = JSON.parse(board.summary) as BoardSummary

@@ -17,6 +17,7 @@ export default defineNitroPlugin((nitroApp) => {
     openDoc: boardId => existingLiveHub()?.openDoc(boardId),
     editBoard: (boardId, edit) => useLiveHub().editBoard(boardId, edit),
     refreshRole: (userId, workspaceId, role) => existingLiveHub()?.refreshRole(userId, workspaceId, role) ?? 0,
+    presentIn: boardId => existingLiveHub()?.presentIn(boardId) ?? [],
   })
 
   nitroApp.hooks.hook('close', async () => {

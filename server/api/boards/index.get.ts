@@ -1,9 +1,11 @@
 import { z } from 'zod'
 import { serializeBoardListEntry } from '../../models'
+import { liveBridge } from '../../database/live-bridge'
 
 const QuerySchema = z.object({ workspace: SlugSchema })
 
-// The workspace's boards with their design frequency, band and last edit, newest first.
+// The workspace's boards with their design frequency, band and last edit, newest first, and who
+// is in each one now (from the live rooms; nothing about presence is stored).
 export default defineEventHandler(async (event) => {
   const { workspace } = await queryAs(event, QuerySchema)
   const access = await requireMember(event, { workspace }, 'reviewer')
@@ -13,5 +15,6 @@ export default defineEventHandler(async (event) => {
     attributes: { exclude: ['state'] },
     order: [['updatedAt', 'DESC'], ['id', 'ASC']],
   })
-  return boards.map(serializeBoardListEntry)
+  const bridge = liveBridge()
+  return boards.map(board => ({ ...serializeBoardListEntry(board), present: bridge?.presentIn?.(board.id) ?? [] }))
 })

@@ -351,7 +351,20 @@ export function createLiveHub(options: LiveHubOptions) {
     return room?.status === 'ready' ? room.doc : undefined
   }
 
-  return { join, receive, leave, closeSocketsOf, refreshRole, sweep, flushAll, shutdown, stats, openDoc, editBoard }
+  /** Who has the board open now: one entry per person (several tabs count once), server-stamped. */
+  function presentIn(boardId: string): { userId: number, name: string, colour: string }[] {
+    const room = rooms.get(boardId)
+    if (!room) return []
+    const people = new Map<number, { userId: number, name: string, colour: string }>()
+    for (const peer of room.peers) {
+      if (peer.isClosed) continue
+      const { userId, name, colour } = peer.identity
+      people.set(userId, { userId, name, colour })
+    }
+    return [...people.values()]
+  }
+
+  return { join, receive, leave, closeSocketsOf, refreshRole, sweep, flushAll, shutdown, stats, openDoc, editBoard, presentIn }
 }
 
 export type LiveHub = ReturnType<typeof createLiveHub>
