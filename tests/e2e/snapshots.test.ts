@@ -91,6 +91,48 @@ describe('snapshots in the browser', () => {
     expect(snapshots.map((s: { label: string }) => s.label)).toEqual(['Before restoring "As it came from the template"', 'As it came from the template'])
   })
 
+  it('shares a board: its link, and a snapshot mailed to a colleague that lands in the outbox', async () => {
+    // A reviewer may share too: sign in as the reviewer in a fresh browser context.
+    const reviewer = DEMO_USERS.reviewer
+    const designerCookie = await signIn(baseUrl, DEMO_USERS.designer.email, DEMO_USERS.designer.password)
+    const created = await fetch(`${baseUrl}/api/boards`, {
+      method: 'POST', headers: { 'content-type': 'application/json', cookie: designerCookie },
+      body: JSON.stringify({ workspace: 'kestrel', name: `Share test ${Date.now()}` }),
+    })
+    const boardId = (await created.json()).id as string
+    const label = `For review ${Date.now()}`
+    expect((await fetch(`${baseUrl}/api/boards/${boardId}/snapshots`, {
+      method: 'POST', headers: { 'content-type': 'application/json', cookie: designerCookie }, body: JSON.stringify({ label }),
+    })).status).toBe(201)
+
+    const sharer = await (await browser.newContext({ viewport: { width: 1440, height: 900 } })).newPage()
+    await sharer.goto(`${baseUrl}/login`)
+    await sharer.fill('#field-email', reviewer.email)
+    await sharer.fill('#field-password', reviewer.password)
+    await sharer.locator('[data-testid="login-form"] button[type="submit"]').click()
+    await sharer.waitForURL(`${baseUrl}/w/kestrel`)
+    await sharer.goto(`${baseUrl}/boards/${boardId}`)
+    await sharer.locator('[data-testid="share-toggle"]').click()
+    expect(await sharer.locator('[data-testid="share-link"]').inputValue()).toBe(`${baseUrl}/boards/${boardId}`)
+    // Sending without choices says what is missing.
+    await sharer.locator('[data-testid="share-send"]').click()
+    expect(await sharer.locator('[data-testid="share-error"]').innerText()).toMatch(/Choose a snapshot/)
+    await sharer.locator('[data-testid="share-snapshot"] option', { hasText: label }).waitFor({ state: 'attached' })
+    await sharer.selectOption('[data-testid="share-snapshot"]', { label })
+    await sharer.selectOption('[data-testid="share-recipient"]', DEMO_USERS.designer.email)
+    await sharer.fill('[data-testid="share-note"]', 'Please check the shunt C before we order.')
+    await sharer.locator('[data-testid="share-send"]').click()
+    await sharer.locator('[data-testid="share-sent"]', { hasText: DEMO_USERS.designer.email }).waitFor()
+    await sharer.screenshot({ path: `${ARTIFACTS}/share-panel.png` })
+
+    const adminCookie = await signIn(baseUrl, DEMO_USERS.admin.email, DEMO_USERS.admin.password)
+    const outbox = await (await fetch(`${baseUrl}/api/workspaces/kestrel/outbox`, { headers: { cookie: adminCookie } })).json()
+    const shared = outbox.find((m: { kind: string, to: string[], textBody?: string, text?: string }) =>
+      m.kind === 'snapshot-shared' && m.to.includes(DEMO_USERS.designer.email) && JSON.stringify(m).includes(label))
+    expect(shared).toBeTruthy()
+    expect(JSON.stringify(shared)).toContain(`/boards/${boardId}`)
+  })
+
   it('shows the admin the members table and the mail outbox', async () => {
     const admin = await (await browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage()
     await admin.goto(`${baseUrl}/login`)
