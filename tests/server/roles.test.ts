@@ -2,7 +2,10 @@
 // routes, columns: anonymous, reviewer, designer (both of kestrel), admin of another workspace,
 // admin of kestrel. What a caller may not see answers 404; what their role may not do, 403.
 import { beforeAll, describe, expect, inject, it } from 'vitest'
+import { readFileSync } from 'node:fs'
+import path from 'node:path'
 import { DEMO_USERS, cookieFrom, signIn } from '../support/auth'
+import { TOUCHSTONE_DIR } from '../support/reference'
 
 const baseUrl = inject('baseUrl')
 
@@ -126,6 +129,30 @@ describe('role matrix', () => {
       expect(got).toEqual(r.expected)
     })
   }
+
+  it('POST /api/boards/:id/uploads and GET /api/uploads/:id', async () => {
+    // Multipart, so outside the JSON rows: a measured antenna file from the reference fixtures.
+    const text = readFileSync(path.join(TOUCHSTONE_DIR, 'antenna_ri_mhz.s1p'), 'utf8')
+    const upload = async (persona: Persona) => {
+      const form = new FormData()
+      form.append('file', new Blob([text], { type: 'text/plain' }), 'antenna_ri_mhz.s1p')
+      const headers: Record<string, string> = cookies[persona] ? { cookie: cookies[persona]! } : {}
+      const res = await fetch(`${baseUrl}/api/boards/${boardId}/uploads`, { method: 'POST', headers, body: form })
+      return { status: res.status, json: await res.json() }
+    }
+    const posted: Record<string, number> = {}
+    let uploadId = ''
+    for (const persona of PERSONAS) {
+      const res = await upload(persona)
+      posted[persona] = res.status
+      if (res.status === 201) uploadId = res.json.id
+      else expect(res.json.message.length).toBeGreaterThan(0)
+    }
+    expect(posted).toEqual(row(401, 403, 201, 404, 201))
+    const read: Record<string, number> = {}
+    for (const persona of PERSONAS) read[persona] = (await call(persona, 'GET', `/api/uploads/${uploadId}`)).status
+    expect(read).toEqual(row(401, 200, 200, 404, 200))
+  })
 
   it('a reviewer may take a snapshot but the board does not change', async () => {
     const before = await call('admin', 'GET', `/api/boards/${boardId}`)
