@@ -152,7 +152,8 @@ export function applyElementToPoints(
       // Measured data is not in the element; trace and sweep route blocks through twoport.ts.
       throw new RfInputError('element', 'a measured block is applied through its chain matrices (twoport.ts), not the element kernel')
   }
-  rescale(p)
+  // Callers that chain many elements may rescale every few steps instead (rescale: false).
+  if (options.rescale !== false) rescale(p)
 }
 
 function applyLumped(
