@@ -1,6 +1,6 @@
 // Workspace invitations: a one-time link mailed to the invitee, valid for 7 days.
 import type { H3Event } from 'h3'
-import { Op } from 'sequelize'
+import { Op, type Transaction } from 'sequelize'
 import { roleAtLeast, type InvitationInstance, type Role, type UserInstance } from '../models'
 import { setMembership } from '../database/accounts'
 import { hashToken, newToken } from '../database/tokens'
@@ -40,16 +40,22 @@ export async function findOpenInvitation(token: string) {
   return { invitation, workspace }
 }
 
-/** Uses the invitation (once) and adds the membership; an existing member keeps the higher role. */
-export async function acceptInvitation(token: string, user: UserInstance) {
+/** The refusal for anyone but the invited address (signed in as someone else, or signing up with another e-mail). */
+export function sentToAnotherAddress(invitedEmail: string) {
+  return createError({ statusCode: 403, message: `This invitation was sent to another address: sign in or sign up as ${invitedEmail} to accept it.` })
+}
+
+/**
+ * Uses the invitation (once) and adds the membership; an existing member keeps the higher role.
+ * Runs in the caller's transaction when given one (sign-up creates the account and joins in one step).
+ */
+export async function acceptInvitation(token: string, user: UserInstance, outer?: Transaction) {
   const sequelize = await useDb()
   const { Invitation, Membership } = await useModels()
-  return sequelize.transaction(async (transaction) => {
+  const run = async (transaction: Transaction) => {
     // The link is for the address it was mailed to: someone holding a forwarded link cannot join.
     const open = await Invitation.findOne({ where: { tokenHash: hashToken(token), acceptedAt: null }, transaction })
-    if (open && open.email.toLowerCase() !== user.email.toLowerCase()) {
-      throw createError({ statusCode: 403, message: `This invitation was sent to another address: sign in as ${open.email} to accept it.` })
-    }
+    if (open && open.email.toLowerCase() !== user.email.toLowerCase()) throw sentToAnotherAddress(open.email)
     // Marking it used first, guarded on "still unused", makes two simultaneous accepts use it once.
     const [used] = await Invitation.update(
       { acceptedAt: new Date(), acceptedBy: user.id },
@@ -64,6 +70,7 @@ export async function acceptInvitation(token: string, user: UserInstance) {
     const { Workspace } = await useModels()
     const workspace = (await Workspace.findByPk(invitation.workspaceId, { transaction }))!
     return { slug: workspace.slug, name: workspace.name }
-  })
+  }
+  return outer ? run(outer) : sequelize.transaction(run)
 }
 

@@ -228,6 +228,39 @@ describe('invitations and membership', () => {
     expect((await api('POST', `/api/invitations/${token}/accept`, { cookie: invited.cookie })).status).toBe(200)
   })
 
+  it('signing up through an invitation takes the invited address and joins in one step', async () => {
+    const admin = await signUp('Eda')
+    const invitedEmail = uniqueEmail('Invited.Person')
+    const { token } = await invite(admin, invitedEmail, 'reviewer')
+    // Another address with the invitation token is refused, and no account is made.
+    const usersBefore = (await queryDb<{ n: number }>(server.dbFile, 'SELECT COUNT(*) AS n FROM users'))[0]!.n
+    const wrong = await api('POST', '/api/auth/signup', { body: { name: 'Forwarded', email: uniqueEmail('forwarded'), password: 'a good long password', invitation: token } })
+    expect(wrong.status).toBe(403)
+    expect(wrong.json.message).toMatch(/this invitation was sent to another address/i)
+    expect((await queryDb<{ n: number }>(server.dbFile, 'SELECT COUNT(*) AS n FROM users'))[0]!.n).toBe(usersBefore)
+    expect((await api('GET', `/api/invitations/${token}`)).status).toBe(200)
+
+    // Without an e-mail of its own, the account gets the invited one (stored lower-cased).
+    const joined = await api('POST', '/api/auth/signup', { body: { name: 'Invited Person', password: 'a good long password', invitation: token } })
+    expect(joined.status).toBe(201)
+    expect(joined.json.user.email).toBe(invitedEmail.toLowerCase())
+    expect(joined.json.joined).toEqual({ slug: admin.workspace, name: "Eda's boards" })
+    const me = await api('GET', '/api/auth/me', { cookie: joined.cookie })
+    expect(me.json.workspaces.map((w: { slug: string, role: string }) => [w.slug, w.role])).toContainEqual([admin.workspace, 'reviewer'])
+    // Used up: the link no longer opens.
+    expect((await api('GET', `/api/invitations/${token}`)).status).toBe(404)
+  })
+
+  it('the invited address may be typed in another case when signing up through the invitation', async () => {
+    const admin = await signUp('Fay')
+    const invitedEmail = uniqueEmail('casey')
+    const { token } = await invite(admin, invitedEmail, 'designer')
+    const res = await api('POST', '/api/auth/signup', { body: { name: 'Casey', email: invitedEmail.toUpperCase(), password: 'a good long password', invitation: token } })
+    expect(res.status).toBe(201)
+    expect(res.json.user.email).toBe(invitedEmail)
+    expect(res.json.joined.slug).toBe(admin.workspace)
+  })
+
   it('refuses an expired invitation', async () => {
     const admin = await signUp('Dee')
     const email = uniqueEmail('slow')
