@@ -54,20 +54,23 @@ function figure(value: number, digits: number, unit = ''): string {
   return `${value.toFixed(digits)}${unit}`
 }
 
+/** What the readout says instead of numbers when the pointer is beyond the rim. */
+export const OUTSIDE_CHART_TEXT = 'outside the passive chart'
+
 /**
  * The cursor readout at a point of the chart (Γ against z0): Z, Y, |Γ|∠, VSWR, return loss.
- * Outside the rim (|Γ| > 1, an active impedance) VSWR and return loss have no meaning and read "—".
+ * Beyond the rim (|Γ| > 1) the point is an active impedance (negative R): no part of a passive
+ * ladder lands there, so the readout gives a note instead of figures that would mislead.
  */
 export function cursorReadout(gamma: Complex, z0: number): ReadoutRow[] {
   const magnitude = Math.hypot(gamma.re, gamma.im)
-  const z = impedanceOf(gamma, z0)
-  const r = readoutOf(z, z0)
-  const isPassive = magnitude <= 1
+  if (!(magnitude <= 1)) return [{ label: 'Pointer', text: OUTSIDE_CHART_TEXT }]
+  const r = readoutOf(impedanceOf(gamma, z0), z0)
   return [
     { label: 'Z', text: complexText(r.z, 'Ω') },
     { label: 'Y', text: complexText(r.y, 'S') },
     { label: 'Γ', text: `${magnitude.toFixed(3)} ∠ ${r.gammaAngleDeg.toFixed(1)}°` },
-    { label: 'VSWR', text: isPassive ? figure(r.vswr, 2) : '—' },
-    { label: 'Return loss', text: isPassive ? figure(r.returnLossDb, 1, ' dB') : '—' },
+    { label: 'VSWR', text: figure(r.vswr, 2) },
+    { label: 'Return loss', text: figure(r.returnLossDb, 1, ' dB') },
   ]
 }

@@ -7,7 +7,7 @@ import { trace } from '../../../shared/rf/ladder'
 import { dragLocus, distanceFromLocus } from '../../../shared/rf/drag'
 import { segmentPath } from '../../../shared/chart/tracePath'
 import { buildTraceScene, locusToScreen, sceneToScreen, type SceneElement } from '../../../shared/chart/scene'
-import { cursorReadout, handleAt, pointIndexAt } from '../../../shared/chart/pointer'
+import { OUTSIDE_CHART_TEXT, cursorReadout, handleAt, pointIndexAt } from '../../../shared/chart/pointer'
 import { fitView } from '../../../shared/chart/viewport'
 
 const Z0 = 50
@@ -139,8 +139,17 @@ describe('pointer helpers', () => {
     expect(rows['Return loss']).toBe('6.0 dB')
   })
 
-  it('has no VSWR outside the rim', () => {
-    const rows = Object.fromEntries(cursorReadout({ re: 1.2, im: 0.3 }, 50).map(r => [r.label, r.text]))
-    expect(rows.VSWR).toBe('—')
+  it('gives a note and no figures outside the rim (|Γ| > 1 would mean negative R)', () => {
+    for (const gamma of [{ re: 1.2, im: 0.3 }, { re: -0.8, im: -0.7 }, { re: 0, im: 1.0001 }]) {
+      const rows = cursorReadout(gamma, 50)
+      expect(rows).toEqual([{ label: 'Pointer', text: OUTSIDE_CHART_TEXT }])
+      expect(rows.map(r => r.text).join(' ')).not.toMatch(/\d/)
+    }
+  })
+
+  it('still reads the rim itself (|Γ| = 1, a pure reactance)', () => {
+    const rows = Object.fromEntries(cursorReadout({ re: 0, im: 1 }, 50).map(r => [r.label, r.text]))
+    expect(rows['Γ']).toBe('1.000 ∠ 90.0°')
+    expect(rows.VSWR).toBe('∞')
   })
 })
