@@ -39,3 +39,30 @@ describe('GET /api/boards/:id', () => {
     expect(body.message).toMatch(/id/)
   })
 })
+
+describe('default Q of new boards', () => {
+  beforeAll(async () => {
+    headers = { cookie: await signIn(baseUrl, DEMO_USERS.designer.email, DEMO_USERS.designer.password) }
+  })
+  async function create(body: Record<string, unknown>) {
+    const res = await fetch(`${baseUrl}/api/boards`, {
+      method: 'POST', headers: { ...headers, 'content-type': 'application/json' }, body: JSON.stringify({ workspace: 'kestrel', ...body }),
+    })
+    expect(res.status).toBe(201)
+    const created = await res.json()
+    return (await (await fetch(`${baseUrl}/api/boards/${created.id}`, { headers })).json()).settings
+  }
+
+  it('a blank board starts with finite Q for L and C (typical chip parts, common practice)', async () => {
+    expect((await create({ name: 'Blank with default Q' })).defaultQ).toEqual({ L: 40, C: 200 })
+  })
+
+  it('a board from a template keeps the template\'s settings (the seeded one has no default Q)', async () => {
+    const templates = await (await fetch(`${baseUrl}/api/workspaces/kestrel/templates`, { headers })).json() as { id: string, name: string }[]
+    // The template the demo seed publishes from the first demo board.
+    const seeded = templates.find(t => t.name === '915 MHz chip antenna, series L + shunt C')!
+    const settings = await create({ name: 'From the seeded template', templateId: seeded.id })
+    expect(settings.defaultQ).toBeUndefined()
+    expect(settings).toEqual(DEMO_BOARDS[0]!.settings)
+  })
+})

@@ -6,6 +6,7 @@ import { readFileSync } from 'node:fs'
 import path from 'node:path'
 import { DEMO_USERS, cookieFrom, signIn } from '../support/auth'
 import { TOUCHSTONE_DIR } from '../support/reference'
+import { linkIn, mailsTo } from '../support/db'
 
 const baseUrl = inject('baseUrl')
 
@@ -24,6 +25,15 @@ async function call(persona: Persona, method: string, path: string, body?: unkno
   const res = await fetch(`${baseUrl}${path}`, { method, headers, body: body === undefined ? undefined : JSON.stringify(body) })
   const text = await res.text()
   return { status: res.status, json: text ? JSON.parse(text) : null }
+}
+
+/** A new invitation to kestrel for an address nobody has; answers the token from the mailed link. */
+async function freshInvitation(): Promise<string> {
+  const email = `invited-${++counter}-${Date.now()}@matrix.example`
+  const res = await call('admin', 'POST', '/api/workspaces/kestrel/invitations', { email, role: 'reviewer' })
+  expect(res.status).toBe(201)
+  const [mail] = await mailsTo(inject('dbFile'), email)
+  return linkIn(mail!.text_body, '/invite/').split('/invite/')[1]!
 }
 
 async function newBoard(name: string): Promise<string> {
@@ -107,6 +117,21 @@ const ROWS: Row[] = [
     route: 'POST /api/snapshots/:id/share', method: 'POST',
     request: () => ({ path: `/api/snapshots/${snapshotId}/share`, body: { email: DEMO_USERS.reviewer.email } }),
     expected: row(401, 200, 200, 404, 200),
+  },
+  {
+    route: 'GET /api/invitations/:token (open; the link is the secret)', method: 'GET',
+    request: async () => ({ path: `/api/invitations/${await freshInvitation()}` }),
+    expected: row(200, 200, 200, 200, 200),
+  },
+  {
+    route: 'POST /api/invitations/:token/accept (sent to another address)', method: 'POST',
+    request: async () => ({ path: `/api/invitations/${await freshInvitation()}/accept` }),
+    expected: row(401, 403, 403, 403, 403),
+  },
+  {
+    route: 'POST /api/auth/signup (through an invitation, with another address)', method: 'POST',
+    request: async () => ({ path: '/api/auth/signup', body: { name: 'Forwarded', email: `forwarded-${++counter}@matrix.example`, password: 'long enough', invitation: await freshInvitation() } }),
+    expected: row(403, 403, 403, 403, 403),
   },
   {
     route: 'POST /api/invitations/:token/accept (unknown token)', method: 'POST',
