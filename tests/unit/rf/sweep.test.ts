@@ -3,6 +3,7 @@ import seedrandom from 'seedrandom'
 import { RfInputError, gammaOf, inputImpedance, returnLossDb, sweep, sweepFlat, vswr, type Element } from '../../../shared/rf/index'
 import { REFERENCE_SOURCE, casesWhere, expectComplexClose, expectRealClose, refComplex, refStart } from './reference'
 import { randomLadder, randomPassiveLoad } from './random-ladders'
+import { applyElementToPoints, createPoints } from '../../../shared/rf/points'
 
 const sweepCases = casesWhere((c) => c.op === 'sweep')
 
@@ -64,6 +65,41 @@ describe('sweep properties (seeded)', () => {
           expect(err, `at ${f} Hz`).toBeLessThan(1e-12)
         })
       }
+    }
+  })
+
+  it('rescaling every fourth element keeps long ladders of far-off part values finite and equal to trace', () => {
+    // The sweep rescales only every fourth element, trace after each one: both must agree and stay
+    // finite where the unscaled pair would overflow.
+    const rng = seedrandom('sweep-rescale-extremes')
+    const frequencies = Array.from({ length: 41 }, (_, i) => 1e6 * 10 ** (i / 10)) // 1 MHz … 10 GHz
+    for (let k = 0; k < 20; k++) {
+      // Series L and shunt C in turn: each pair of them can multiply the pair's size by ~1e18.
+      const elements: Element[] = Array.from({ length: 96 }, (_, i) => (i % 2 === 0
+        ? { kind: 'L', placement: 'series', value: 10 ** (-9 + rng() * 9) } // 1 nH … 1 H
+        : { kind: 'C', placement: 'shunt', value: 10 ** (-12 + rng() * 9) })) // 1 pF … 1 mF
+      const load = randomPassiveLoad(rng)
+      const out = sweep({ z0: 50, frequencies, load, elements })
+      frequencies.forEach((f, i) => {
+        const z = inputImpedance({ z0: 50, frequency: f, load, elements })
+        expect(Number.isFinite(out[i]!.re) || !Number.isFinite(z.re), `finite at ${f} Hz`).toBe(true)
+        const scale = Math.max(1, Math.hypot(z.re, z.im))
+        expect(Math.hypot(out[i]!.re - z.re, out[i]!.im - z.im) / scale, `at ${f} Hz`).toBeLessThan(1e-9)
+      })
+    }
+  })
+
+  it('the point kernel rescales only when asked', () => {
+    const big = { re: 1e150, im: 0 }
+    for (const rescale of [true, false]) {
+      const p = createPoints(1)
+      p.aRe[0] = big.re
+      p.bRe[0] = 1e140
+      applyElementToPoints(p, { kind: 'R', placement: 'series', value: 1 }, Float64Array.of(1e9), { rescale })
+      const m = Math.abs(p.aRe[0]!) + Math.abs(p.bRe[0]!)
+      expect(m > 1e100, `rescale: ${rescale}`).toBe(!rescale)
+      // Either way the point itself is the same: 1e10 Ω + 1 Ω.
+      expect((p.aRe[0]! / p.bRe[0]!) / (1e10 + 1)).toBeCloseTo(1, 12)
     }
   })
 
