@@ -66,7 +66,8 @@ export const useBoardStore = defineStore('board', () => {
   const preview = ref<BoardElement[] | null>(null)
   const lastError = ref<string | null>(null)
   /** Monte Carlo end points at the design frequency (impedances, Ω) for the chart; null when none. */
-  const cloud = ref<Complex[] | null>(null)
+  // A shallow ref: up to a few hundred points replaced as a whole, never edited in place.
+  const cloud = shallowRef<Complex[] | null>(null)
   const loadedQ = ref(3)
 
   // ---- view toggles (the chart reads these) ----
@@ -176,6 +177,18 @@ export const useBoardStore = defineStore('board', () => {
   const bandGamma = computed(() => gammaAcrossBand(bandSweep.value))
   const bandReturnLossDb = computed(() => returnLossAcrossBand(bandGamma.value))
   const bandVerdict = computed(() => verdictOf(bandFrequencies.value, bandReturnLossDb.value, settings.value.spec))
+
+  /** True while a drag draft exists (a boolean, so readers are not woken by every draft move). */
+  const isDragging = computed(() => draft.value !== null)
+  // The band as the secondary panels read it (frequency markers, the snap-all "now" row): during a
+  // drag it follows settledElements (every 120 ms), outside a drag it is the live band itself.
+  const settledBandSweep = computed(() => (isDragging.value ? sweepOf(settledElements.value) : bandSweep.value))
+  const settledBandReturnLossDb = computed(() => (isDragging.value
+    ? returnLossAcrossBand(gammaAcrossBand(settledBandSweep.value))
+    : bandReturnLossDb.value))
+  const settledBandVerdict = computed(() => (isDragging.value
+    ? verdictOf(bandFrequencies.value, settledBandReturnLossDb.value, settings.value.spec)
+    : bandVerdict.value))
 
   /** The series the parts list rounds to: the snap series, or E24 when snapping is off. */
   const partsSeries = computed<Exclude<SnapSeries, 'none'>>(() =>
@@ -432,6 +445,7 @@ export const useBoardStore = defineStore('board', () => {
     traceAtDesign, endPoint, endpointReadout, endpointChartGamma,
     measuredIds, isMeasuredPending, measuredRange, bandOutsideHz,
     bandFrequencies, bandLoadZ, bandReferences, bandSweep, bandGamma, bandReturnLossDb, bandVerdict,
+    isDragging, settledBandSweep, settledBandReturnLossDb, settledBandVerdict,
     partsSeries, snappedElements, snappedBandGamma, snappedBandReturnLossDb, snappedBandVerdict, partsList, bandPlot,
     solutions, solveNotes, previewTrace, analysisLadder, cloud,
     // actions

@@ -40,17 +40,19 @@ export const useMarkersStore = defineStore('markers', () => {
     bandwidthThresholdDb.value = db !== null && Number.isFinite(db) && db > 0 ? db : null
   }
 
+  // Marker readouts, worst return loss and bandwidth read the settled band: during a drag they
+  // follow every 120 ms (the band plot shows the live curve meanwhile).
   /** Each marker's readout at the source end of the ladder (Γ against the board's reference). */
   const readouts = computed<MarkerReadout[]>(() => frequenciesHz.value.flatMap((f) => {
     const i = nearestIndex(board.bandFrequencies, f)
     if (i < 0) return []
     const ref = board.settings.source.kind === 'z0' ? board.z0 : board.reference
-    return [{ frequencyHz: board.bandFrequencies[i]!, ...readoutOf(board.bandSweep[i]!, ref) }]
+    return [{ frequencyHz: board.bandFrequencies[i]!, ...readoutOf(board.settledBandSweep[i]!, ref) }]
   }))
 
-  const worst = computed(() => worstReturnLoss(board.bandFrequencies, board.bandReturnLossDb))
+  const worst = computed(() => worstReturnLoss(board.bandFrequencies, board.settledBandReturnLossDb))
   const thresholdDb = computed(() => bandwidthThresholdDb.value ?? board.settings.spec.minReturnLossDb)
-  const bandwidth = computed(() => bandwidthAt(board.bandFrequencies, board.bandReturnLossDb, thresholdDb.value))
+  const bandwidth = computed(() => bandwidthAt(board.bandFrequencies, board.settledBandReturnLossDb, thresholdDb.value))
 
   return { frequenciesHz, bandwidthThresholdDb, thresholdDb, readouts, worst, bandwidth, toggleAt, remove, clear, setBandwidthThreshold }
 })

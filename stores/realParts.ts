@@ -99,7 +99,8 @@ export const useRealPartsStore = defineStore('realParts', () => {
     const series = chosenSeries.value
     const ladder = snapped(board.elements, series)
     const changed = ladder.filter((e, i) => e !== board.elements[i] && (e as { value: number }).value !== (board.elements[i] as { value: number }).value).length
-    return { series, changed, before: board.bandVerdict, after: board.bandVerdictOf(ladder) }
+    // "Now" is the settled band: read live, it would redo the snapped sweep on every drag move.
+    return { series, changed, before: board.settledBandVerdict, after: board.bandVerdictOf(ladder) }
   }))
 
   // ---- Monte Carlo ----

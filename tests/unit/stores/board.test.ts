@@ -254,4 +254,21 @@ describe('secondary results during a drag', () => {
     expect(valueOf(store.settledElements, 'ant-c1')).toBe(valueOf(store.elements, 'ant-c1'))
     expect(store.settledElements).toBe(store.elements)
   })
+
+  it('keep the band for markers and the snap-all "now" row settled, while the live band follows each move', () => {
+    vi.useFakeTimers()
+    const settledBefore = store.settledBandReturnLossDb
+    const liveBefore = store.bandReturnLossDb
+    expect(settledBefore).toEqual(liveBefore)
+    store.beginDrag('ant-c1')
+    store.dragTo(8.2e-12)
+    // The live band moved at once; the settled one is the committed ladder's until the timer fires.
+    expect(store.bandReturnLossDb).not.toEqual(liveBefore)
+    expect(store.settledBandReturnLossDb).toEqual(settledBefore)
+    vi.advanceTimersByTime(200)
+    expect(store.settledBandReturnLossDb).toEqual(store.bandReturnLossDb)
+    expect(store.settledBandVerdict).toEqual(store.bandVerdict)
+    store.commitDrag()
+    expect(store.settledBandReturnLossDb).toBe(store.bandReturnLossDb)
+  })
 })
