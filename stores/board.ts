@@ -44,8 +44,10 @@ export function snapped<E extends ElementJson>(elements: readonly E[], series: E
     (e.kind === 'L' || e.kind === 'C' || e.kind === 'R') ? { ...e, value: nearestStandard(e.value, series) } : e)
 }
 
-/** How often secondary results follow a drag (ms); see settledElements. */
-const SETTLED_EVERY_MS = 120
+/** Secondary results catch up with a drag once the draft has rested this long (ms); see settledElements. */
+const SETTLE_AFTER_REST_MS = 120
+/** …and at least this often while the draft keeps moving (ms). */
+const SETTLE_AT_LEAST_EVERY_MS = 500
 
 export const useBoardStore = defineStore('board', () => {
   // ---- document snapshot (read from the Y.Doc only) ----
@@ -90,23 +92,31 @@ export const useBoardStore = defineStore('board', () => {
 
   /**
    * The ladder the secondary panels read (stress, losses, parts list, snapped band, Monte Carlo inputs).
-   * During a drag it follows the draft at most every SETTLED_EVERY_MS so one pointer move stays
-   * inside a 60 Hz frame; the chart, the dragged tile, the end-point readout and the band plot's live
-   * curve read effectiveElements and follow every move. Outside a drag it is effectiveElements itself.
+   * During a drag it catches up with the draft once the pointer rests SETTLE_AFTER_REST_MS, and at
+   * least every SETTLE_AT_LEAST_EVERY_MS while it keeps moving: catching up costs a few ms (a band of
+   * losses, the snapped band, two tables), which on every seventh frame would push the slowest
+   * frames past budget. The chart, the dragged tile, the end-point readout and the band plot's live
+   * curve read effectiveElements and follow every move. Outside a drag it is the document's ladder.
    */
   const settledElements = shallowRef<BoardElement[]>(elements.value)
   let settleTimer: ReturnType<typeof setTimeout> | null = null
+  let pendingSince: number | null = null
+  function settle() {
+    settleTimer = null
+    pendingSince = null
+    settledElements.value = effectiveElements.value
+  }
   watch([elements, draft], () => {
+    if (settleTimer) clearTimeout(settleTimer)
+    settleTimer = null
     if (!draft.value) {
-      if (settleTimer) clearTimeout(settleTimer)
-      settleTimer = null
+      pendingSince = null
       settledElements.value = elements.value
       return
     }
-    settleTimer ??= setTimeout(() => {
-      settleTimer = null
-      settledElements.value = effectiveElements.value
-    }, SETTLED_EVERY_MS)
+    const now = Date.now()
+    pendingSince ??= now
+    settleTimer = setTimeout(settle, Math.max(0, Math.min(SETTLE_AFTER_REST_MS, pendingSince + SETTLE_AT_LEAST_EVERY_MS - now)))
   }, { flush: 'sync' })
 
   // ---- measured files (uploads): fetched into the measured store, never into the document ----

@@ -255,6 +255,25 @@ describe('secondary results during a drag', () => {
     expect(store.settledElements).toBe(store.elements)
   })
 
+  it('catch up once the pointer rests, and at least every half second while it keeps moving', () => {
+    vi.useFakeTimers()
+    const committed = valueOf(store.settledElements, 'ant-c1')
+    store.beginDrag('ant-c1')
+    const seen = new Set<number>()
+    // A 60 Hz drag for 0.9 s through E12 values: nothing settles before 0.5 s, something by then.
+    const values = [3.9e-12, 4.7e-12, 5.6e-12, 6.8e-12, 8.2e-12]
+    for (let t = 0; t < 900; t += 16) {
+      store.dragTo(values[Math.floor(t / 16) % values.length]!)
+      vi.advanceTimersByTime(16)
+      if (t < 480) expect(valueOf(store.settledElements, 'ant-c1'), `at ${t} ms`).toBe(committed)
+      seen.add(valueOf(store.settledElements, 'ant-c1'))
+    }
+    expect(seen.size).toBeGreaterThan(1)
+    // At rest it catches up with the draft itself.
+    vi.advanceTimersByTime(130)
+    expect(valueOf(store.settledElements, 'ant-c1')).toBe(store.draft!.value)
+  })
+
   it('keep the band for markers and the snap-all "now" row settled, while the live band follows each move', () => {
     vi.useFakeTimers()
     const settledBefore = store.settledBandReturnLossDb
