@@ -2,4 +2,5 @@
 # One build at a time in this tree (.nuxt and .output are shared); a second caller waits.
 set -euo pipefail
 cd "$(dirname "$0")/.."
-exec flock /tmp/gammaboard-build.lock npx nuxt build
+mkdir -p node_modules/.cache
+exec flock node_modules/.cache/gammaboard-build.lock npx nuxt build
