@@ -1,26 +1,19 @@
 // In Chromium: an invitation link opened by someone signed in under another address says so and
 // offers to sign out; signing up through the link takes the invited address (not editable) and lands
 // in the inviting workspace with the invited role.
-import { mkdirSync } from 'node:fs'
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
-import { launchChromium } from '../support/browser'
+import { beforeAll, describe, expect, inject, it } from 'vitest'
+import type { Page } from 'playwright-core'
+import { ARTIFACTS, useChromium } from '../support/browser'
 import { DEMO_USERS, signIn, signInPage } from '../support/auth'
 import { linkIn, mailsTo } from '../support/db'
 
 const baseUrl = inject('baseUrl')
 const dbFile = inject('dbFile')
-const ARTIFACTS = 'tests/artifacts'
-let browser: Browser
 let page: Page
 
+const browser = useChromium()
 beforeAll(async () => {
-  mkdirSync(ARTIFACTS, { recursive: true })
-  browser = await launchChromium()
-  page = await (await browser.newContext({ viewport: { width: 1200, height: 900 } })).newPage()
-})
-afterAll(async () => {
-  await browser?.close()
+  page = await (await browser().newContext({ viewport: { width: 1200, height: 900 } })).newPage()
 })
 
 describe('accepting an invitation in the browser', () => {

@@ -1,9 +1,8 @@
 // Two Chromium pages on one board over the built server: a typed edit and a chart drag in one show in the other,
 // presence avatars show who is there, and a reviewer's page says it is read-only.
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
-import { launchChromium } from '../support/browser'
-import { mkdirSync } from 'node:fs'
+import { describe, expect, inject, it } from 'vitest'
+import type { Page } from 'playwright-core'
+import { ARTIFACTS, useChromium } from '../support/browser'
 import { DEMO_USERS, signIn, signInPage } from '../support/auth'
 import { connectLive, waitUntil, whenSynced } from '../support/live-client'
 import { addElement } from '../../shared/board/ops'
@@ -11,17 +10,11 @@ import { readBoard } from '../../shared/board/ydoc'
 import { createBoard } from '../live/helpers'
 
 const baseUrl = inject('baseUrl')
-const ARTIFACTS = 'tests/artifacts'
-let browser: Browser
 
-beforeAll(async () => {
-  mkdirSync(ARTIFACTS, { recursive: true })
-  browser = await launchChromium()
-})
-afterAll(async () => { await browser?.close() })
+const browser = useChromium()
 
 async function pageAs(user: { email: string, password: string }, boardId: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1440, height: 900 } })
+  const context = await browser().newContext({ viewport: { width: 1440, height: 900 } })
   const page = await context.newPage()
   await signInPage(page, baseUrl, user.email, user.password)
   await page.goto(`${baseUrl}/boards/${boardId}`)

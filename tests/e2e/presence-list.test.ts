@@ -1,33 +1,23 @@
 // In Chromium: the workspace home's "In it now" column shows an avatar for someone who opens a
 // board (a Node live client here), without a reload (the list refreshes about every 10 s), and
 // drops it after they leave.
-import { mkdirSync } from 'node:fs'
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import type { Browser } from 'playwright-core'
-import { launchChromium } from '../support/browser'
+import { afterAll, describe, expect, inject, it } from 'vitest'
+import { ARTIFACTS, useChromium } from '../support/browser'
 import { DEMO_USERS, signIn, signInPage } from '../support/auth'
 import { connectLive, whenSynced, type LiveClient } from '../support/live-client'
 import { createBoard } from '../live/helpers'
 
 const baseUrl = inject('baseUrl')
-const ARTIFACTS = 'tests/artifacts'
-let browser: Browser
 let client: LiveClient | undefined
 
-beforeAll(async () => {
-  mkdirSync(ARTIFACTS, { recursive: true })
-  browser = await launchChromium()
-})
-afterAll(async () => {
-  client?.destroy()
-  await browser?.close()
-})
+const browser = useChromium()
+afterAll(() => { client?.destroy() })
 
 describe('who is in each board, on the workspace home', () => {
   it('shows a colleague who opens a board, then not after they leave', async () => {
     const designer = await signIn(baseUrl, DEMO_USERS.designer.email, DEMO_USERS.designer.password)
     const boardId = await createBoard(baseUrl, designer, `Presence column ${Date.now()}`)
-    const page = await (await browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage()
+    const page = await (await browser().newContext({ viewport: { width: 1280, height: 900 } })).newPage()
     await signInPage(page, baseUrl, DEMO_USERS.reviewer.email, DEMO_USERS.reviewer.password)
     await page.goto(`${baseUrl}/w/kestrel`)
     const cell = page.locator(`tr[data-board-id="${boardId}"] [data-testid="board-present"]`)

@@ -1,29 +1,19 @@
 // The printed report uses the board's own source power and default Q (not a fixed 1 W), and prints
 // the parts beyond their ratings beside the cautions. The board is set up over the live socket from
 // Node, then the report is opened in Chromium.
-import { mkdirSync } from 'node:fs'
 import Complex from 'complex.js'
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import type { Browser } from 'playwright-core'
+import { afterAll, describe, expect, inject, it } from 'vitest'
 import { addElement, updateSettings } from '../../shared/board/ops'
-import { launchChromium } from '../support/browser'
+import { ARTIFACTS, useChromium } from '../support/browser'
 import { DEMO_USERS, signIn, signInPage } from '../support/auth'
 import { connectLive, whenSynced, type LiveClient } from '../support/live-client'
 import { createBoard } from '../live/helpers'
 
 const baseUrl = inject('baseUrl')
-const ARTIFACTS = 'tests/artifacts'
-let browser: Browser
 let client: LiveClient | undefined
 
-beforeAll(async () => {
-  mkdirSync(ARTIFACTS, { recursive: true })
-  browser = await launchChromium()
-})
-afterAll(async () => {
-  client?.destroy()
-  await browser?.close()
-})
+const browser = useChromium()
+afterAll(() => { client?.destroy() })
 
 // The case: 50 Ω source and load at 915 MHz with one shunt 1 pF capacitor across the load.
 const FREQUENCY_HZ = 915e6
@@ -58,7 +48,7 @@ describe('the printed report follows the board settings', () => {
     // Rated 10 V: below the ≈ 15.7 V it sees at 5 W, so it must be flagged (at 1 W, ≈ 7 V, it would not).
     addElement(client.doc, { kind: 'C', placement: 'shunt', value: C_FARADS, vRatingV: 10 })
 
-    const page = await (await browser.newContext({ viewport: { width: 1100, height: 1400 } })).newPage()
+    const page = await (await browser().newContext({ viewport: { width: 1100, height: 1400 } })).newPage()
     await signInPage(page, baseUrl, DEMO_USERS.designer.email, DEMO_USERS.designer.password)
     await page.goto(`${baseUrl}/boards/${boardId}/report`)
     const ladder = page.locator('[data-testid="report-ladder"]')

@@ -1,28 +1,21 @@
 // In Chromium: the demo designer signs in through the form, starts a board from the workspace's
 // template, keeps a snapshot, changes the ladder, and restores the snapshot. Screenshots land in
 // tests/artifacts/ for a person to look at.
-import { mkdirSync } from 'node:fs'
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
-import { launchChromium } from '../support/browser'
+import { beforeAll, describe, expect, inject, it } from 'vitest'
+import type { Page } from 'playwright-core'
+import { ARTIFACTS, useChromium } from '../support/browser'
 import { DEMO_USERS, signIn } from '../support/auth'
 
 const baseUrl = inject('baseUrl')
-const ARTIFACTS = 'tests/artifacts'
-let browser: Browser
 let page: Page
 
 async function tileIds(): Promise<string[]> {
   return page.locator('[data-testid="ladder-tile"]').evaluateAll(els => els.map(el => el.getAttribute('data-element-id') ?? ''))
 }
 
+const browser = useChromium()
 beforeAll(async () => {
-  mkdirSync(ARTIFACTS, { recursive: true })
-  browser = await launchChromium()
-  page = await (await browser.newContext({ viewport: { width: 1440, height: 900 } })).newPage()
-})
-afterAll(async () => {
-  await browser?.close()
+  page = await (await browser().newContext({ viewport: { width: 1440, height: 900 } })).newPage()
 })
 
 describe('snapshots in the browser', () => {
@@ -105,7 +98,7 @@ describe('snapshots in the browser', () => {
       method: 'POST', headers: { 'content-type': 'application/json', cookie: designerCookie }, body: JSON.stringify({ label }),
     })).status).toBe(201)
 
-    const sharer = await (await browser.newContext({ viewport: { width: 1440, height: 900 } })).newPage()
+    const sharer = await (await browser().newContext({ viewport: { width: 1440, height: 900 } })).newPage()
     await sharer.goto(`${baseUrl}/login`)
     await sharer.fill('#field-email', reviewer.email)
     await sharer.fill('#field-password', reviewer.password)
@@ -134,7 +127,7 @@ describe('snapshots in the browser', () => {
   })
 
   it('shows the admin the members table and the mail outbox', async () => {
-    const admin = await (await browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage()
+    const admin = await (await browser().newContext({ viewport: { width: 1280, height: 900 } })).newPage()
     await admin.goto(`${baseUrl}/login`)
     await admin.fill('#field-email', DEMO_USERS.admin.email)
     await admin.fill('#field-password', DEMO_USERS.admin.password)
