@@ -1,15 +1,13 @@
 // The board page in Chromium: typed values, ladder edits, undo/redo by keyboard, a solver result.
 // Screenshots land in tests/artifacts/ for a person to look at.
-import { afterAll, beforeAll, beforeEach, describe, expect, inject, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
-import { mkdirSync } from 'node:fs'
-import { DEMO_USERS, signIn, signInPage } from '../support/auth'
-import { launchChromium } from '../support/browser'
+import { beforeAll, beforeEach, describe, expect, inject, it } from 'vitest'
+import type { Page } from 'playwright-core'
+import { DEMO_USERS, signIn } from '../support/auth'
+import { ARTIFACTS, signedInPage, useChromium } from '../support/browser'
 
 const baseUrl = inject('baseUrl')
-const ARTIFACTS = 'tests/artifacts'
 const TEMPLATE_NAME = '915 MHz chip antenna, series L + shunt C'
-let browser: Browser
+const browser = useChromium()
 let page: Page
 let cookie = ''
 let templateId = ''
@@ -46,18 +44,13 @@ async function openBoard(id: string) {
 }
 
 beforeAll(async () => {
-  mkdirSync(ARTIFACTS, { recursive: true })
   cookie = await signIn(baseUrl, DEMO_USERS.designer.email, DEMO_USERS.designer.password)
   const templates = await (await fetch(`${baseUrl}/api/workspaces/kestrel/templates`, { headers: { cookie } })).json()
   templateId = templates.find((t: { name: string }) => t.name === TEMPLATE_NAME).id
-  browser = await launchChromium()
 })
-afterAll(async () => { await browser?.close() })
 
 beforeEach(async () => {
-  const context = await browser.newContext({ viewport: { width: 1440, height: 900 } })
-  page = await context.newPage()
-  await signInPage(page, baseUrl, DEMO_USERS.designer.email, DEMO_USERS.designer.password)
+  page = await signedInPage(browser(), baseUrl, DEMO_USERS.designer, { width: 1440, height: 900 })
 })
 
 describe('the board page', () => {

@@ -1,16 +1,14 @@
 // Real parts in Chromium: the Monte Carlo worker's progress and cancel on a demo board, the cloud
 // on the chart, and a part flagged beyond its rating at the source power. Screenshots land in
 // tests/artifacts/ for a person to look at.
-import { afterAll, beforeAll, beforeEach, describe, expect, inject, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
-import { mkdirSync } from 'node:fs'
-import { DEMO_USERS, signIn, signInPage } from '../support/auth'
-import { launchChromium } from '../support/browser'
+import { beforeAll, beforeEach, describe, expect, inject, it } from 'vitest'
+import type { Page } from 'playwright-core'
+import { DEMO_USERS, signIn } from '../support/auth'
+import { ARTIFACTS, signedInPage, useChromium } from '../support/browser'
 
 const baseUrl = inject('baseUrl')
-const ARTIFACTS = 'tests/artifacts'
 const TEMPLATE_NAME = '915 MHz chip antenna, series L + shunt C'
-let browser: Browser
+const browser = useChromium()
 let page: Page
 let cookie = ''
 
@@ -45,15 +43,10 @@ async function setTrials(n: number) {
 }
 
 beforeAll(async () => {
-  mkdirSync(ARTIFACTS, { recursive: true })
   cookie = await signIn(baseUrl, DEMO_USERS.designer.email, DEMO_USERS.designer.password)
-  browser = await launchChromium()
 })
-afterAll(async () => { await browser?.close() })
 beforeEach(async () => {
-  const context = await browser.newContext({ viewport: { width: 1440, height: 1000 } })
-  page = await context.newPage()
-  await signInPage(page, baseUrl, DEMO_USERS.designer.email, DEMO_USERS.designer.password)
+  page = await signedInPage(browser(), baseUrl, DEMO_USERS.designer, { width: 1440, height: 1000 })
 })
 
 describe('tolerance yield in the browser', () => {
