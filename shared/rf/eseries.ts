@@ -82,3 +82,21 @@ export function standardNeighbours(value: number, series: ESeriesName): { below:
   const above = Math.min(...candidates.filter((c) => c >= v * (1 - 1e-12)))
   return { below, above }
 }
+
+/**
+ * Every standard value of `series` from `min` to `max` (both > 0, ends included when they are
+ * standard values themselves), ascending; each the double nearest m·10^e.
+ */
+export function standardValuesBetween(series: ESeriesName, min: number, max: number): number[] {
+  const lo = requirePositive(min, 'min')
+  const hi = requirePositive(max, 'max')
+  const list = table(series)
+  const out: number[] = []
+  for (let e = Math.floor(Math.log10(lo)) - 1; e <= Math.floor(Math.log10(hi)) + 1; e++) {
+    for (const m of list) {
+      const v = scaled(m, e)
+      if (v >= lo * (1 - 1e-12) && v <= hi * (1 + 1e-12)) out.push(v)
+    }
+  }
+  return out
+}

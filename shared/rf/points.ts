@@ -160,27 +160,36 @@ function applyLumped(
   p: PointBuffer, kind: 'L' | 'C' | 'R', placement: 'series' | 'shunt', value: number,
   q: number | undefined, frequenciesHz: Float64Array,
 ): void {
-  const invQ = kind !== 'R' && q !== undefined ? 1 / q : 0
   const isSeries = placement === 'series'
   if ((kind === 'C' && isSeries && value === 0) || (kind !== 'C' && !isSeries && value === 0)) {
     for (let i = 0; i < p.n; i++) (isSeries ? setOpen : setShort)(p, i)
     return
   }
-  // The part's impedance (series) or admittance (shunt) is (cr + j ci)·g(f), g(f) = 1, f or 1/f:
-  // series L: ωL(1/Q + j); shunt L: (1/Q − j)/(ωL(1 + 1/Q²)); series C: (1/Q − j)/(ωC);
-  // shunt C: ωC(1/Q + j)/(1 + 1/Q²); R: R or 1/R.
-  const w = 2 * Math.PI * value
-  const k = 1 / (1 + invQ * invQ)
   if (kind === 'R') {
     addConstant(p, isSeries, isSeries ? value : 1 / value)
-  } else if (kind === 'L') {
-    if (isSeries) addScaled(p, true, w * invQ, w, frequenciesHz, false)
-    else addScaled(p, false, (k * invQ) / w, -k / w, frequenciesHz, true)
-  } else if (isSeries) {
-    addScaled(p, true, invQ / w, -1 / w, frequenciesHz, true)
-  } else {
-    addScaled(p, false, k * invQ * w, k * w, frequenciesHz, false)
+    return
   }
+  const c = reactiveCoefficients(kind, placement, value, q)
+  addScaled(p, isSeries, c.cr, c.ci, frequenciesHz, c.isInverse)
+}
+
+/**
+ * The impedance (series) or admittance (shunt) of an L or C part as (cr + j ci)·g(f), with
+ * g(f) = f or, when `isInverse`, 1/f (ω = 2πf):
+ * series L: ωL(1/Q + j); shunt L: (1/Q − j)/(ωL(1 + 1/Q²)); series C: (1/Q − j)/(ωC);
+ * shunt C: ωC(1/Q + j)/(1 + 1/Q²). Finite Q is the series ESR = |X|/Q; `q` absent: lossless.
+ * Exported so that code scanning many part values (the match search) uses these same numbers.
+ */
+export function reactiveCoefficients(
+  kind: 'L' | 'C', placement: 'series' | 'shunt', value: number, q: number | undefined,
+): { cr: number; ci: number; isInverse: boolean } {
+  const invQ = q !== undefined ? 1 / q : 0
+  const w = 2 * Math.PI * value
+  const k = 1 / (1 + invQ * invQ)
+  if (kind === 'L') {
+    return placement === 'series' ? { cr: w * invQ, ci: w, isInverse: false } : { cr: (k * invQ) / w, ci: -k / w, isInverse: true }
+  }
+  return placement === 'series' ? { cr: invQ / w, ci: -1 / w, isInverse: true } : { cr: k * invQ * w, ci: k * w, isInverse: false }
 }
 
 /** series: a += r·b; shunt: b += r·a (a real, frequency-independent part). */
