@@ -3,7 +3,7 @@
 import { mkdirSync } from 'node:fs'
 import { dirname, resolve } from 'node:path'
 import sqlite3 from 'sqlite3'
-import { Sequelize } from 'sequelize'
+import { Sequelize, Transaction } from 'sequelize'
 
 export const DEFAULT_DB_FILE = 'data/gammaboard.sqlite'
 
@@ -11,6 +11,8 @@ export const DEFAULT_DB_FILE = 'data/gammaboard.sqlite'
 export function databaseFile(env: NodeJS.ProcessEnv = process.env): string {
   return resolve(env.GAMMABOARD_DB || DEFAULT_DB_FILE)
 }
+
+export const BUSY_TIMEOUT_MS = 5000
 
 /**
  * Open the database with WAL journaling (readers never block the writer) and a busy timeout
@@ -23,12 +25,51 @@ export async function openSequelize(file: string): Promise<Sequelize> {
     dialectModule: sqlite3,
     storage: file,
     logging: false,
-    // One connection: SQLite serialises writers anyway, and PRAGMAs are per connection.
-    pool: { max: 1, min: 0, idle: 60_000 },
+    // BEGIN IMMEDIATE takes the write lock up front. A deferred transaction that reads and then
+    // writes cannot wait for the lock (SQLite answers SQLITE_BUSY at once to avoid a deadlock).
+    transactionType: Transaction.TYPES.IMMEDIATE,
   })
+  configureEveryConnection(sequelize)
+  serializeTransactions(sequelize)
   await sequelize.query('PRAGMA journal_mode = WAL')
-  await sequelize.query('PRAGMA busy_timeout = 5000')
   await sequelize.query('PRAGMA foreign_keys = ON')
   await sequelize.query('PRAGMA synchronous = NORMAL')
   return sequelize
+}
+
+/**
+ * Sequelize's SQLite dialect opens a new connection for every transaction (no pool, no
+ * afterConnect hook), so a PRAGMA run once reaches only the default connection: transactions had
+ * no busy timeout and failed with SQLITE_BUSY under concurrency. Every new handle gets it here.
+ */
+function configureEveryConnection(sequelize: Sequelize): void {
+  const manager = sequelize.connectionManager as unknown as { getConnection: (options?: object) => Promise<sqlite3.Database> }
+  const getConnection = manager.getConnection.bind(manager)
+  const configured = new WeakSet<sqlite3.Database>()
+  manager.getConnection = async (options) => {
+    const connection = await getConnection(options)
+    if (!configured.has(connection)) {
+      connection.configure('busyTimeout', BUSY_TIMEOUT_MS)
+      configured.add(connection)
+    }
+    return connection
+  }
+}
+
+/**
+ * One managed transaction at a time in this process. SQLite has one writer anyway; queueing here
+ * keeps waiting writers off libuv's four worker threads, where a busy wait could starve the very
+ * transaction holding the lock. Other processes (scripts/admin.ts) still meet the busy timeout.
+ * WARNING: so never open a transaction inside another one's callback; pass the outer one down.
+ */
+function serializeTransactions(sequelize: Sequelize): void {
+  const transaction = sequelize.transaction.bind(sequelize) as (...args: unknown[]) => Promise<unknown>
+  let tail: Promise<unknown> = Promise.resolve()
+  sequelize.transaction = ((...args: unknown[]) => {
+    // Unmanaged transactions (no callback) are committed by their caller: not queued.
+    if (typeof args[args.length - 1] !== 'function') return transaction(...args)
+    const run = tail.then(() => transaction(...args))
+    tail = run.catch(() => {})
+    return run
+  }) as Sequelize['transaction']
 }

@@ -1,5 +1,10 @@
-// Failed sign-ins are counted per account and per client address over a sliding window; either
-// reaching the limit refuses further attempts (429) until old failures age out.
+// Sign-in attempts are counted per account and per client address over a sliding window; either
+// reaching the limit refuses further attempts (429) until old attempts age out.
+// The attempt is reserved (counted) before the password is checked, in one atomic step with the
+// check: counting only after scrypt let 40 parallel guesses all pass a check made before any of
+// them had been recorded. A successful sign-in gives its reservation back.
+// The limiter sits behind `LoginLimiter` so another store (Redis, for several nodes) can replace
+// the SQLite one without touching the route.
 import type { H3Event } from 'h3'
 import { Op } from 'sequelize'
 
@@ -14,28 +19,55 @@ export function clientAddress(event: H3Event): string {
   return event.node.req.socket.remoteAddress ?? 'unknown'
 }
 
-function windowStart(): Date {
-  return new Date(Date.now() - LOGIN_WINDOW_MS)
+/** One counted attempt, held while the password is checked. */
+export interface LoginReservation {
+  /** The password matched: the account's count is cleared and this attempt is not held against the address. */
+  succeeded(): Promise<void>
 }
 
-export async function isLoginBlocked(email: string, address: string): Promise<boolean> {
-  const { LoginFailure } = await useModels()
-  const since = { [Op.gte]: windowStart() }
-  const [forAccount, forAddress] = await Promise.all([
-    LoginFailure.count({ where: { scope: 'account', key: email, createdAt: since } }),
-    LoginFailure.count({ where: { scope: 'address', key: address, createdAt: since } }),
-  ])
-  return forAccount >= LOGIN_FAILURE_LIMIT || forAddress >= LOGIN_FAILURE_LIMIT
+export interface LoginLimiter {
+  /** Counts an attempt against the account and the address, or answers null (nothing counted) when either is at the limit. */
+  reserve(email: string, address: string): Promise<LoginReservation | null>
+  /** Clears the account's count (after a password reset). */
+  clearAccount(email: string): Promise<void>
 }
 
-export async function recordLoginFailure(email: string, address: string): Promise<void> {
-  const { LoginFailure } = await useModels()
-  await LoginFailure.destroy({ where: { createdAt: { [Op.lt]: windowStart() } } })
-  await LoginFailure.bulkCreate([{ scope: 'account', key: email }, { scope: 'address', key: address }])
+/** The single-node limiter: rows in login_failures, reserved inside one (serialised, immediate) transaction. */
+export function createSqlLoginLimiter(limit = LOGIN_FAILURE_LIMIT, windowMs = LOGIN_WINDOW_MS): LoginLimiter {
+  const clearAccount = async (email: string) => {
+    const { LoginFailure } = await useModels()
+    await LoginFailure.destroy({ where: { scope: 'account', key: email } })
+  }
+  return {
+    async reserve(email, address) {
+      const sequelize = await useDb()
+      const { LoginFailure } = await useModels()
+      const ids = await sequelize.transaction(async (transaction) => {
+        const since = new Date(Date.now() - windowMs)
+        await LoginFailure.destroy({ where: { createdAt: { [Op.lt]: since } }, transaction })
+        const recent = { [Op.gte]: since }
+        const forAccount = await LoginFailure.count({ where: { scope: 'account', key: email, createdAt: recent }, transaction })
+        const forAddress = await LoginFailure.count({ where: { scope: 'address', key: address, createdAt: recent }, transaction })
+        if (forAccount >= limit || forAddress >= limit) return null
+        const account = await LoginFailure.create({ scope: 'account', key: email }, { transaction })
+        const client = await LoginFailure.create({ scope: 'address', key: address }, { transaction })
+        return [account.id, client.id]
+      })
+      if (!ids) return null
+      return {
+        async succeeded() {
+          await clearAccount(email)
+          await LoginFailure.destroy({ where: { id: ids } })
+        },
+      }
+    },
+    clearAccount,
+  }
 }
 
-/** A successful sign-in clears the account's count (the address keeps its own). */
-export async function clearAccountFailures(email: string): Promise<void> {
-  const { LoginFailure } = await useModels()
-  await LoginFailure.destroy({ where: { scope: 'account', key: email } })
+let limiter: LoginLimiter | undefined
+
+export function useLoginLimiter(): LoginLimiter {
+  limiter ??= createSqlLoginLimiter()
+  return limiter
 }

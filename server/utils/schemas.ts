@@ -14,6 +14,8 @@ export const SlugSchema = z.string({ error: 'must be text' }).regex(SLUG_PATTERN
 export const TokenSchema = z.string().min(16, 'is not a valid link token').max(100, 'is not a valid link token')
 export const BoardIdSchema = z.string().min(1).max(100)
 export const UuidSchema = z.string().uuid('is not a valid id')
+/** A user id in a path: plain decimal digits only (Number() would also take "0x3", " 3" and "3e0"). */
+export const UserIdSchema = z.string().regex(/^[1-9][0-9]{0,14}$/, 'is not a user id').transform(Number)
 
 export const SlugParams = z.object({ slug: SlugSchema })
 export const IdParams = z.object({ id: BoardIdSchema })

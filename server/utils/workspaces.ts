@@ -31,16 +31,35 @@ export async function adminCount(workspaceId: number, transaction?: Transaction)
 }
 
 /** Refuses a change that would leave the workspace without an admin. */
-export async function assertKeepsAnAdmin(workspaceId: number, currentRole: Role, nextRole: Role | null): Promise<void> {
+export async function assertKeepsAnAdmin(workspaceId: number, currentRole: Role, nextRole: Role | null, transaction?: Transaction): Promise<void> {
   if (currentRole !== 'admin' || nextRole === 'admin') return
-  if (await adminCount(workspaceId) <= 1) {
+  if (await adminCount(workspaceId, transaction) <= 1) {
     throw createError({ statusCode: 422, message: 'A workspace needs at least one admin: make someone else an admin first.' })
   }
 }
 
-export async function findMember(workspaceId: number, userId: number) {
+export async function findMember(workspaceId: number, userId: number, transaction?: Transaction) {
   const { Membership } = await useModels()
-  const membership = await Membership.findOne({ where: { workspaceId, userId } })
+  const membership = await Membership.findOne({ where: { workspaceId, userId }, transaction })
   if (!membership) throw createError({ statusCode: 404, message: 'No such member in this workspace.' })
   return membership
+}
+
+/**
+ * Changes a member's role (null: removes them), refusing to leave the workspace without an admin.
+ * The admin count and the change are one immediate transaction: two admins demoting each other at
+ * the same moment both counted two admins before either wrote, and left none.
+ */
+export async function changeMembership(workspaceId: number, userId: number, role: Role | null) {
+  const sequelize = await useDb()
+  return sequelize.transaction(async (transaction) => {
+    const membership = await findMember(workspaceId, userId, transaction)
+    await assertKeepsAnAdmin(workspaceId, membership.role, role, transaction)
+    if (role === null) await membership.destroy({ transaction })
+    else {
+      membership.role = role
+      await membership.save({ transaction })
+    }
+    return membership
+  })
 }

@@ -4,8 +4,19 @@ import { z } from 'zod'
 
 export const NAME_MAX = 120
 
+// C0 controls (NUL included) and DEL, and a UTF-16 half without its other half: a lone
+// surrogate is not text, and neither survives every database, mail header and JSON reader.
+const CONTROL = /[\u0000-\u001f\u007f]/
+const LONE_SURROGATE = /[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/
+
+/** True for a single line of well-formed text: no control characters, no lone surrogates. */
+export function isPlainText(value: string): boolean {
+  return !CONTROL.test(value) && !LONE_SURROGATE.test(value)
+}
+
 export const NameSchema = z.string({ error: 'must be text' }).trim()
   .min(1, 'must not be empty').max(NAME_MAX, `must be at most ${NAME_MAX} characters`)
+  .refine(isPlainText, 'must not contain control characters or broken Unicode')
 export const EmailSchema = z.string({ error: 'must be text' }).trim().toLowerCase()
   .max(254, 'must be at most 254 characters').pipe(z.email({ error: 'must be an e-mail address' }))
 export const PasswordSchema = z.string({ error: 'must be text' })

@@ -2,11 +2,10 @@
 // the local catcher's outbox table; tokens are single-use and expire; sign-in is rate limited.
 // Runs its own server: the failed sign-ins here must not lock other test files out.
 import { execFile } from 'node:child_process'
-import { request } from 'node:http'
 import { promisify } from 'node:util'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { startServer, type RunningServer } from '../support/server'
-import { cookieFrom } from '../support/auth'
+import { apiClient, postFrom as sharedPostFrom } from '../support/api'
 import { linkIn, mailsTo, queryDb, writeDb } from '../support/db'
 
 let server: RunningServer
@@ -20,14 +19,7 @@ afterAll(async () => {
   await server?.stop()
 })
 
-async function api(method: string, path: string, options: { body?: unknown, cookie?: string } = {}) {
-  const headers: Record<string, string> = {}
-  if (options.cookie) headers.cookie = options.cookie
-  if (options.body !== undefined) headers['content-type'] = 'application/json'
-  const res = await fetch(`${base}${path}`, { method, headers, body: options.body === undefined ? undefined : JSON.stringify(options.body) })
-  const text = await res.text()
-  return { status: res.status, json: text ? JSON.parse(text) : null, cookie: cookieFrom(res), res }
-}
+const api: ReturnType<typeof apiClient> = (...args) => apiClient(base)(...args)
 
 let serial = 0
 const uniqueEmail = (who: string) => `${who}-${Date.now()}-${++serial}@flows.example`
@@ -38,21 +30,8 @@ async function signUp(name: string, email = uniqueEmail(name.toLowerCase()), pas
   return { email, password, cookie: res.cookie, workspace: res.json.workspace.slug as string, id: res.json.user.id as number }
 }
 
-/** A POST from a chosen loopback source address (127.0.0.x), as a different client would be. */
-function postFrom(localAddress: string, path: string, body: unknown, extraHeaders: Record<string, string> = {}): Promise<number> {
-  const payload = JSON.stringify(body)
-  return new Promise((ok, fail) => {
-    const req = request(`${base}${path}`, {
-      method: 'POST', localAddress,
-      headers: { 'content-type': 'application/json', 'content-length': Buffer.byteLength(payload), ...extraHeaders },
-    }, (res) => {
-      res.resume()
-      res.on('end', () => ok(res.statusCode!))
-    })
-    req.on('error', fail)
-    req.end(payload)
-  })
-}
+const postFrom = (localAddress: string, path: string, body: unknown, extraHeaders: Record<string, string> = {}) =>
+  sharedPostFrom(base, localAddress, path, body, extraHeaders)
 
 describe('sign-up, sign-in and sign-out', () => {
   it('signs up into a personal workspace, signs out, and signs back in', async () => {

@@ -1,8 +1,10 @@
 import { z } from 'zod'
 import { normalizeEmail, serializeUser } from '../../models'
+import { isPlainText } from '../../../shared/accounts/fields'
 
 const BodySchema = z.object({
-  email: z.string({ error: 'must be text' }).min(1, 'must not be empty').max(254, 'must be at most 254 characters'),
+  email: z.string({ error: 'must be text' }).min(1, 'must not be empty').max(254, 'must be at most 254 characters')
+    .refine(isPlainText, 'must not contain control characters'),
   password: z.string({ error: 'must be text' }).min(1, 'must not be empty').max(200, 'must be at most 200 characters'),
 })
 
@@ -16,19 +18,17 @@ let decoyHash: Promise<string> | undefined
 export default defineEventHandler(async (event) => {
   const body = await readBodyAs(event, BodySchema)
   const email = normalizeEmail(body.email)
-  const address = clientAddress(event)
-  if (await isLoginBlocked(email, address)) {
+  // Counted before scrypt runs, so parallel guesses cannot all slip under the limit.
+  const attempt = await useLoginLimiter().reserve(email, clientAddress(event))
+  if (!attempt) {
     throw createError({ statusCode: 429, message: 'Too many failed sign-ins: wait 15 minutes, or reset your password.' })
   }
   const { User } = await useModels()
   const user = await User.findOne({ where: { email } })
   decoyHash ??= hashPassword('decoy password that matches nothing')
   const matches = await verifyPassword(user?.passwordHash ?? await decoyHash, body.password)
-  if (!user || !matches) {
-    await recordLoginFailure(email, address)
-    throw createError({ statusCode: 401, message: SIGN_IN_FAILED })
-  }
-  await clearAccountFailures(email)
+  if (!user || !matches) throw createError({ statusCode: 401, message: SIGN_IN_FAILED })
+  await attempt.succeeded()
   await startSession(event, user)
   return { user: serializeUser(user), workspaces: await workspacesOf(user.id) }
 })

@@ -7,7 +7,7 @@ const BodySchema = z.object({ token: TokenSchema, password: PasswordSchema })
 export default defineEventHandler(async (event) => {
   const body = await readBodyAs(event, BodySchema)
   const user = await resetPassword(body.token, await hashPassword(body.password))
-  await clearAccountFailures(user.email)
+  await useLoginLimiter().clearAccount(user.email)
   await startSession(event, user)
   return { user: serializeUser(user), workspaces: await workspacesOf(user.id) }
 })

@@ -22,11 +22,12 @@ export default defineEventHandler(async (event) => {
   const email = invited ? invited.email.toLowerCase() : body.email!
   const sequelize = await useDb()
   const { User } = await useModels()
-  if (await User.count({ where: { email } })) {
-    throw createError({ statusCode: 422, message: 'email: an account with this e-mail address already exists; sign in or reset the password.' })
-  }
   const passwordHash = await hashPassword(body.password)
   const { user, workspace, joined } = await sequelize.transaction(async (transaction) => {
+    // Checked inside the transaction: parallel sign-ups with one address make one account.
+    if (await User.count({ where: { email }, transaction })) {
+      throw createError({ statusCode: 422, message: 'email: an account with this e-mail address already exists; sign in or reset the password.' })
+    }
     const user = await createUser(sequelize, { email, name: body.name, passwordHash }, transaction)
     const workspace = await createWorkspace(sequelize, { name: body.workspaceName ?? `${body.name}'s boards`.slice(0, 120) }, transaction)
     await setMembership(sequelize, { userId: user.id, workspaceId: workspace.id, role: 'admin' }, transaction)

@@ -1,7 +1,7 @@
 import { z } from 'zod'
 import { liveBridge } from '../../../../database/live-bridge'
 
-const ParamsSchema = z.object({ slug: SlugSchema, userId: z.coerce.number().int().positive('is not a user id') })
+const ParamsSchema = z.object({ slug: SlugSchema, userId: UserIdSchema })
 
 // Admins remove anyone; any member may remove themselves (leave). The last admin can do neither.
 // Access is checked on every request, so a removed member loses access at once.
@@ -11,9 +11,7 @@ export default defineEventHandler(async (event) => {
   if (userId !== access.user.id && access.role !== 'admin') {
     throw createError({ statusCode: 403, message: 'Only an admin can remove other members.' })
   }
-  const membership = await findMember(access.workspace.id, userId)
-  await assertKeepsAnAdmin(access.workspace.id, membership.role, null)
-  await membership.destroy()
+  await changeMembership(access.workspace.id, userId, null)
   liveBridge()?.refreshRole?.(userId, access.workspace.id, null)
   return { ok: true }
 })
