@@ -15,6 +15,13 @@ export const BENCH_MODULES: BenchModule[] = [
     },
   },
   {
+    name: 'models',
+    run: async () => {
+      const m = await import('./models')
+      m.printModelsBench(m.runModelsBench())
+    },
+  },
+  {
     name: 'touchstone',
     run: async () => {
       const m = await import('./touchstone')

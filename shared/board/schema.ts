@@ -13,6 +13,21 @@ export const ComplexSchema = z.object({ re: finite, im: finite })
 
 // ---- elements ----------------------------------------------------------------------------
 
+/**
+ * A real part's model (shared/rf types.ts `PartModel`): Q by frequency ([Hz, Q] rows, rising),
+ * an inductor's self-resonance, a capacitor's series inductance, pad capacitance to ground.
+ * The RF core checks which fields fit which kind (validatePartModel).
+ */
+export const PartModelSchema = z.object({
+  q: z.array(z.tuple([frequencyHz, positive])).min(1).max(64)
+    .refine(rows => rows.every((r, i) => i === 0 || r[0] > rows[i - 1]![0]), 'frequencies must rise through the table')
+    .optional(),
+  srf: frequencyHz.optional(),
+  esl: nonNegative.refine(v => v < 1e-6, 'must be below 1 µH').optional(),
+  padC: nonNegative.refine(v => v < 1e-9, 'must be below 1 nF').optional(),
+}).strict()
+export type PartModelJson = z.infer<typeof PartModelSchema>
+
 const lumpedFields = {
   placement: z.enum(['series', 'shunt']),
   value: positive,
@@ -23,6 +38,10 @@ const lumpedFields = {
   /** Ratings (RMS): the voltage across and current through the part it is made for. */
   vRatingV: positive.optional(),
   iRatingA: positive.optional(),
+  /** L and C: the real part's parasitics and loss by frequency; absent, the part is ideal. */
+  model: PartModelSchema.optional(),
+  /** The workspace parts-library identifier of the part this element is (its model copied in). */
+  partId: z.string().min(1).max(64).optional(),
 }
 export const LumpedElementSchema = z.object({ kind: z.enum(['L', 'C', 'R']), ...lumpedFields })
 export const LineElementSchema = z.object({

@@ -17,6 +17,7 @@
 import type { Element } from './types'
 import { applyElementToPoints, createPoints } from './points'
 import { blockAbcd, type BlockLookup } from './twoport'
+import { hasModel, padPiAbcd, padSusceptance, type ModelledPart } from './models'
 
 /** ABCD matrices of one element at n frequencies, as flat arrays (A, B in Ω, C in S, D plain). */
 export type FlatAbcd = {
@@ -60,6 +61,10 @@ function measuredAbcdFlat(element: Extract<Element, { kind: 'block' }>, frequenc
  */
 export function elementAbcdFlat(element: Element, frequenciesHz: ArrayLike<number>, blocks?: BlockLookup, path = 'element'): FlatAbcd {
   if (element.kind === 'block') return measuredAbcdFlat(element, frequenciesHz, blocks, path)
+  // A modelled series part's pads make it a pi (D ≠ 1): the part alone from the kernel, then the pads.
+  if (hasModel(element) && element.placement === 'series' && element.model.padC) {
+    return withPads(elementAbcdFlat({ ...element, model: { ...element.model, padC: 0 } }, frequenciesHz), element, frequenciesHz)
+  }
   const n = frequenciesHz.length
   const col1 = createPoints(n) // starts as shorts (0, 1): the second column
   const col0 = createPoints(n)
@@ -102,6 +107,18 @@ export function elementAbcdFlat(element: Element, frequenciesHz: ArrayLike<numbe
     out.dRe[i] = dr * kRe - di * kIm; out.dIm[i] = dr * kIm + di * kRe
   }
   return out
+}
+
+/** A series part's matrices S (D = 1) turned into pad·S·pad (models.ts `padPiAbcd`). */
+function withPads(m: FlatAbcd, part: ModelledPart, frequenciesHz: ArrayLike<number>): FlatAbcd {
+  const out = new Float64Array(8)
+  for (let i = 0; i < m.n; i++) {
+    if (m.blocked[i]) continue
+    padPiAbcd(m.bRe[i]!, m.bIm[i]!, padSusceptance(part, frequenciesHz[i]!), out)
+    m.aRe[i] = out[0]!; m.aIm[i] = out[1]!; m.bRe[i] = out[2]!; m.bIm[i] = out[3]!
+    m.cRe[i] = out[4]!; m.cIm[i] = out[5]!; m.dRe[i] = out[6]!; m.dIm[i] = out[7]!
+  }
+  return m
 }
 
 /** Voltages (V) and currents (A) as phasors at n frequencies, on flat arrays. */

@@ -27,6 +27,8 @@
 import type { Complex, Element, LumpedElement, LineElement, StubElement } from './types'
 import { OPEN, isInfinite } from './complex'
 import { RfInputError } from './errors'
+import { hasModel } from './models'
+import { dragModelled, modelledLocus } from './drag-model'
 
 // ---- loci in the Γ plane ------------------------------------------------------------------
 
@@ -128,6 +130,7 @@ export const DRAG_T_MAX = 1e6
 export function dragLocus(element: Element, zPrev: Complex, z0: number, frequencyHz: number): GammaLocus | null {
   if (element.kind === 'xfmr' || element.kind === 'block') return null
   if (element.kind === 'line') return lineLocus(element, zPrev, z0)?.locus ?? null
+  if (hasModel(element)) return canMove(element, zPrev) ? modelledLocus(element, zPrev, z0, frequencyHz) : null
   const ray = rayOf(element, zPrev, z0, frequencyHz)
   return ray ? rayLocus(ray) : null
 }
@@ -143,6 +146,7 @@ export function dragElement(input: DragInput): DragResult {
   if (element.kind === 'xfmr') throw new RfInputError('element', 'a transformer is not draggable: type its ratio')
   if (element.kind === 'block') throw new RfInputError('element', 'a measured block is not draggable')
   if (element.kind === 'line') return dragLine(element, input)
+  if (hasModel(element) && canMove(element, zPrev)) return dragModelled(element, input)
   const ray = rayOf(element, zPrev, z0, frequencyHz)
   const field = dragFieldOf(element)
   const current = field === 'deg' ? (element as StubElement).deg : (element as LumpedElement).value
@@ -173,6 +177,11 @@ export function dragElement(input: DragInput): DragResult {
 }
 
 // ---- rays of two-terminal parts ------------------------------------------------------------
+
+/** A series part on an open, or a shunt part on a short, cannot move the point (pads aside). */
+function canMove(element: LumpedElement, zPrev: Complex): boolean {
+  return element.placement === 'series' ? !isInfinite(zPrev) : !(zPrev.re === 0 && zPrev.im === 0)
+}
 
 interface Ray {
   readonly isSeries: boolean

@@ -8,6 +8,7 @@ import { ELEMENT_KINDS } from './types'
 import { RfInputError, describe, requireNonNegative, requirePositive } from './errors'
 import { OPEN, SHORT, asComplex } from './complex'
 import { applyElementToPoints, createPoints, readAdmittance, readImpedance, setPoint } from './points'
+import { validatePartModel } from './models'
 
 /** Options for `validateElement`. */
 export type ElementCheck = {
@@ -52,6 +53,7 @@ export function validateElement(value: unknown, path: string, check: ElementChec
       requirePlacement(e.placement, `${path}.placement`)
       requireNonNegative(e.value, `${path}.value`)
       if (e.q !== undefined) requirePositive(e.q, `${path}.q`)
+      if (e.model !== undefined) validatePartModel(e.model, kind, `${path}.model`)
       if (e.tolerance !== undefined) {
         const t = requireNonNegative(e.tolerance, `${path}.tolerance`)
         if (t >= 1) throw new RfInputError(`${path}.tolerance`, `is a fraction and must be below 1, got ${t}`)
@@ -131,9 +133,13 @@ export function elementAdmittance(element: Element, frequencyHz: number): Comple
   return readAdmittance(partOn(OPEN, 'shunt', element, frequencyHz), 0)
 }
 
-/** One point at `start` moved through the part placed as given. */
+/**
+ * One point at `start` moved through the part placed as given. A modelled part's pads go to
+ * ground, not across the part, so they are left out here: this is the part's own Z or Y.
+ */
 function partOn(start: Complex, placement: Placement, element: Element, frequencyHz: number) {
-  const part = asTwoTerminal(validateElement(element, 'element'))
+  let part = asTwoTerminal(validateElement(element, 'element'))
+  if (part.kind !== 'stub' && part.model?.padC) part = { ...part, model: { ...part.model, padC: 0 } }
   const f = requireFrequency(frequencyHz, 'frequencyHz')
   const p = createPoints(1)
   setPoint(p, 0, start)

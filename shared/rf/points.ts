@@ -17,6 +17,7 @@
 import type { Complex, Element } from './types'
 import { divideParts, isInfinite } from './complex'
 import { electricalCosSin } from './angles'
+import { hasModel, inverseQOf, type ModelledPart } from './models'
 
 /** How `applyElementToPoints` may work: see `isUniformGrid` (angles.ts) and `rescale`. */
 export type StepOptions = {
@@ -119,7 +120,9 @@ export function applyElementToPoints(
     case 'L':
     case 'C':
     case 'R':
-      applyLumped(p, element.kind, element.placement, element.value, element.q, frequencies)
+      // A part with a model takes its own loop; ideal parts keep the one below, unchanged.
+      if (element.model !== undefined && hasModel(element)) applyModelled(p, element, frequencies)
+      else applyLumped(p, element.kind, element.placement, element.value, element.q, frequencies)
       break
     case 'line': {
       const zc = element.z0
@@ -190,6 +193,91 @@ export function reactiveCoefficients(
     return placement === 'series' ? { cr: w * invQ, ci: w, isInverse: false } : { cr: (k * invQ) / w, ci: -k / w, isInverse: true }
   }
   return placement === 'series' ? { cr: invQ / w, ci: -1 / w, isInverse: true } : { cr: k * invQ * w, ci: k * w, isInverse: false }
+}
+
+/**
+ * A modelled L or C (models.ts), its impedance as a ratio Z = num/den so resonances stay finite:
+ * inductor num = ωL(1/Q + j), den = 1 − r² + j·r²/Q (r = f/srf: L with its ESR, Cp across both);
+ * capacitor num = 1/Q + j(ω²·C·ESL − 1), den = ωC (C, ESL and ESR in series). Pads B = ωCpad.
+ * Chain maps on (a, b): series: pad (a, b + jB·a), part (den·a + num·b, den·b), pad again — a pi
+ * of pad, part, pad; shunt: Y = den/num + jB, (a, b) → (num·a, (den + jB·num)·a + num·b).
+ * The shunt map is scaled by num (D = num), the series one without pads by den (D = den): abcd.ts
+ * divides by D, and composes a series part's pads itself.
+ */
+function applyModelled(p: PointBuffer, part: ModelledPart, frequenciesHz: Float64Array): void {
+  const { n, aRe, aIm, bRe, bIm } = p
+  const invQ = inverseQOf(part, frequenciesHz)
+  const value = part.value
+  const twoPi = 2 * Math.PI
+  const padC = part.model.padC ?? 0
+  // One loop per kind and placement, constants hoisted (the kernel's rule).
+  if (part.kind === 'L') {
+    const invSrf2 = part.model.srf !== undefined ? 1 / (part.model.srf * part.model.srf) : 0
+    if (part.placement === 'series') {
+    for (let i = 0; i < n; i++) {
+      const f = frequenciesHz[i]!
+      const w = twoPi * f
+      const q = invQ[i]!
+      const wl = w * value
+      const r2 = f * f * invSrf2
+      const nr = wl * q, ni = wl, dr = 1 - r2, di = r2 * q
+      const pb = w * padC
+      const ar = aRe[i]!, ai = aIm[i]!
+      const br = bRe[i]! - pb * ai, bi = bIm[i]! + pb * ar
+      const ar2 = dr * ar - di * ai + nr * br - ni * bi
+      const ai2 = dr * ai + di * ar + nr * bi + ni * br
+      aRe[i] = ar2; aIm[i] = ai2
+      bRe[i] = dr * br - di * bi - pb * ai2
+      bIm[i] = dr * bi + di * br + pb * ar2
+    }
+    } else {
+    for (let i = 0; i < n; i++) {
+      const f = frequenciesHz[i]!
+      const w = twoPi * f
+      const q = invQ[i]!
+      const wl = w * value
+      const r2 = f * f * invSrf2
+      const nr = wl * q, ni = wl, dr = 1 - r2, di = r2 * q
+      const pb = w * padC
+      const ar = aRe[i]!, ai = aIm[i]!, br = bRe[i]!, bi = bIm[i]!
+      const yr = dr - pb * ni, yi = di + pb * nr // den + jB·num
+      aRe[i] = nr * ar - ni * ai; aIm[i] = nr * ai + ni * ar
+      bRe[i] = yr * ar - yi * ai + nr * br - ni * bi
+      bIm[i] = yr * ai + yi * ar + nr * bi + ni * br
+    }
+    }
+  } else {
+    const ce = value * (part.model.esl ?? 0) // C·ESL
+    if (part.placement === 'series') {
+    for (let i = 0; i < n; i++) {
+      const f = frequenciesHz[i]!
+      const w = twoPi * f
+      const q = invQ[i]!
+      const nr = q, ni = w * w * ce - 1, dr = w * value, di = 0
+      const pb = w * padC
+      const ar = aRe[i]!, ai = aIm[i]!
+      const br = bRe[i]! - pb * ai, bi = bIm[i]! + pb * ar
+      const ar2 = dr * ar - di * ai + nr * br - ni * bi
+      const ai2 = dr * ai + di * ar + nr * bi + ni * br
+      aRe[i] = ar2; aIm[i] = ai2
+      bRe[i] = dr * br - di * bi - pb * ai2
+      bIm[i] = dr * bi + di * br + pb * ar2
+    }
+    } else {
+    for (let i = 0; i < n; i++) {
+      const f = frequenciesHz[i]!
+      const w = twoPi * f
+      const q = invQ[i]!
+      const nr = q, ni = w * w * ce - 1, dr = w * value, di = 0
+      const pb = w * padC
+      const ar = aRe[i]!, ai = aIm[i]!, br = bRe[i]!, bi = bIm[i]!
+      const yr = dr - pb * ni, yi = di + pb * nr // den + jB·num
+      aRe[i] = nr * ar - ni * ai; aIm[i] = nr * ai + ni * ar
+      bRe[i] = yr * ar - yi * ai + nr * br - ni * bi
+      bIm[i] = yr * ai + yi * ar + nr * bi + ni * br
+    }
+    }
+  }
 }
 
 /** series: a += r·b; shunt: b += r·a (a real, frequency-independent part). */

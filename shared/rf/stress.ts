@@ -12,6 +12,8 @@
  * obeys V_in = Vs − Zs·I_in. For each element:
  * - series L, C, R or stub: I through = the branch current; V across = V(source side) − V(load side);
  * - shunt L, C, R or stub: V across = the node voltage; I through = I(source side) − I(load side);
+ * - a modelled part (models.ts) counts the part alone: the current its pads to ground draw at
+ *   the load-side node (jωCpad·V) is taken off (series: added back to the branch current);
  * - line, transformer and measured block: the larger of the two end values of V and of I. On a mismatched line
  *   the standing wave can peak between the ends, above both; a line's figures are therefore a
  *   lower bound of its peak.
@@ -136,7 +138,14 @@ export function elementStress(input: StressInput): StressResult {
     }
     const isSeries = e.placement === 'series'
     const across: [number, number] = isSeries ? [v1[0] - v0[0], v1[1] - v0[1]] : v0
-    const through: [number, number] = isSeries ? i0 : [i1[0] - i0[0], i1[1] - i0[1]]
+    const through: [number, number] = isSeries ? [...i0] : [i1[0] - i0[0], i1[1] - i0[1]]
+    // A modelled part's pads (to ground) carry jB·V0 at its load-side node: not the part's current.
+    const padB = e.kind !== 'stub' && e.model?.padC ? 2 * Math.PI * f * e.model.padC : 0
+    if (padB > 0) {
+      const sign = isSeries ? 1 : -1
+      through[0] -= sign * padB * v0[1]
+      through[1] += sign * padB * v0[0]
+    }
     const own: Raw = { v: magnitude(...across), i: magnitude(...through), p: e.kind === 'stub' ? 0 : p }
     if (e.kind === 'stub') {
       const far = stubFarEnd(e, f, across, through)

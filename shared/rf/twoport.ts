@@ -21,6 +21,7 @@ import { isInfinite } from './complex'
 import { electricalDegrees, elementAdmittance, elementImpedance, validateElements, requireFrequency } from './elements'
 import { applyElementToPoints, rescale, type PointBuffer } from './points'
 import { interpolateMatrices, rangeOf, type InterpolationMode } from './interpolate'
+import { hasModel, padPiAbcd, padSusceptance, type ModelledPart } from './models'
 
 /** A chain matrix [[a, b], [c, d]]: (V1, I1) = M·(V2, I2), I2 flowing out of port 2. b in Ω, c in S. */
 export type Abcd = { readonly a: Complex; readonly b: Complex; readonly c: Complex; readonly d: Complex }
@@ -171,15 +172,28 @@ export function elementAbcd(element: Element, frequencyHz: number, blocks?: Bloc
       return blockAbcd(element, blocks, [frequencyHz], { path })[0]!
     default: {
       if (element.placement === 'series') {
+        // A modelled part's own Z (its pads left out), then its pads to ground at both ends.
         const z = elementImpedance(element, frequencyHz)
         if (isInfinite(z)) throw new RfInputError(path, 'a series open blocks the path: the ladder has no chain matrix here')
+        if (hasModel(element) && element.model.padC) {
+          const m = new Float64Array(8)
+          padPiAbcd(z.re, z.im, padSusceptance(element, frequencyHz), m)
+          return { a: c(m[0]!, m[1]!), b: c(m[2]!, m[3]!), c: c(m[4]!, m[5]!), d: c(m[6]!, m[7]!) }
+        }
         return { a: ONE, b: z, c: ZERO, d: ONE }
       }
-      const y = elementAdmittance(element, frequencyHz)
+      // A shunt part's pad is in parallel with it: elementAdmittance would drop it, the kernel keeps it.
+      const y = hasModel(element) ? shuntAdmittanceWithPad(element, frequencyHz) : elementAdmittance(element, frequencyHz)
       if (isInfinite(y)) throw new RfInputError(path, 'a shunt short blocks the path: the ladder has no chain matrix here')
       return { a: ONE, b: ZERO, c: y, d: ONE }
     }
   }
+}
+
+/** A shunt modelled part's admittance with its pad: the part on an open, through the kernel. */
+function shuntAdmittanceWithPad(part: ModelledPart, frequencyHz: number): Complex {
+  const y = elementAdmittance(part, frequencyHz)
+  return isInfinite(y) ? y : c(y.re, y.im + padSusceptance(part, frequencyHz))
 }
 
 /** Arguments of `ladderSParameters`. */

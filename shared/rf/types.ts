@@ -26,6 +26,25 @@ export type LumpedElement = {
   readonly value: number
   readonly q?: number
   readonly tolerance?: number
+  /** L and C only: a real part's parasitics and loss by frequency (models.ts); absent, the part is ideal. */
+  readonly model?: PartModel
+}
+
+/**
+ * A component model of a real L or C part (models.ts):
+ * - `q`: [Hz, Q] pairs in rising frequency, interpolated linearly in log f and log Q and held at
+ *   the end values outside the table; absent, the element's own `q` applies (or none).
+ * - `srf` (inductor, Hz): self-resonance, a capacitance Cp = 1/((2π·srf)²·L) across the inductor
+ *   and its loss.
+ * - `esl` (capacitor, H): series inductance.
+ * - `padC` (F): pad capacitance to ground at each end of a series part, at the live end of a
+ *   shunt part.
+ */
+export type PartModel = {
+  readonly q?: readonly (readonly [number, number])[]
+  readonly srf?: number
+  readonly esl?: number
+  readonly padC?: number
 }
 
 /**
