@@ -52,6 +52,14 @@ export const BENCH_MODULES: BenchModule[] = [
       m.printMonteCarloBench(await m.runMonteCarloBench())
     },
   },
+  {
+    name: 'search',
+    needs: 'the system cc; a build (bash scripts/build.sh) and /usr/bin/chromium for the worker and live parts',
+    run: async () => {
+      const m = await import('./search')
+      m.printSearchBench(m.runSearchBench())
+    },
+  },
 ]
 
 async function main(): Promise<void> {
