@@ -1,4 +1,6 @@
 // Gammaboard: Nuxt 4 in the root-level layout (no app/ folder — creating one switches the source dir).
+import { workerSourceModule } from './server/workers/bundle'
+
 export default defineNuxtConfig({
   compatibilityDate: '2026-01-01',
   devtools: { enabled: false },
@@ -14,6 +16,10 @@ export default defineNuxtConfig({
   },
   nitro: {
     experimental: { websocket: true },
+    // Server worker threads, bundled into strings (server/workers/bundle.ts explains why).
+    virtual: {
+      '#search-worker-source': () => workerSourceModule('server/workers/search-run.ts'),
+    },
   },
   vite: {
     optimizeDeps: { include: ['complex.js', 'vue-konva', 'konva', 'yjs', 'y-websocket', 'uplot', 'sortablejs'] },

@@ -61,3 +61,22 @@ export const SolveStubBodySchema = z.object({
   placement: z.enum(['shunt', 'series']).optional(),
   stubZ0: positiveNumber.optional(),
 })
+
+/** Most frequencies in one match search, and its largest ladder (the search's cost grows with both). */
+export const RF_SEARCH_MAX_FREQUENCIES = 401
+export const RF_SEARCH_MAX_ELEMENTS = 3
+
+const PassiveImpedanceSchema = ComplexSchema.refine(z => z.re >= 0, 'must be passive (re ≥ 0)')
+
+export const SearchBodySchema = z.object({
+  z0: positiveNumber,
+  frequencies: z.array(positiveNumber).min(1, 'needs at least one frequency')
+    .max(RF_SEARCH_MAX_FREQUENCIES, `at most ${RF_SEARCH_MAX_FREQUENCIES} frequencies`),
+  load: z.union([PassiveImpedanceSchema, z.array(PassiveImpedanceSchema).max(RF_SEARCH_MAX_FREQUENCIES)],
+    { error: 'must be one passive impedance { re, im } or one per frequency' }),
+  series: z.enum(['E12', 'E24', 'E48', 'E96']),
+  maxElements: z.number().int('must be a whole number').min(1, 'at least 1').max(RF_SEARCH_MAX_ELEMENTS, `at most ${RF_SEARCH_MAX_ELEMENTS}`),
+  q: z.object({ L: positiveNumber.optional(), C: positiveNumber.optional() }).strict().optional(),
+  limit: z.number().int('must be a whole number').min(1).max(100).optional(),
+}).refine(b => !Array.isArray(b.load) || b.load.length === b.frequencies.length,
+  { path: ['load'], message: 'needs one impedance per frequency' })

@@ -139,6 +139,12 @@ const ROWS: Row[] = [
     expected: row(401, 404, 404, 404, 404),
   },
   { route: 'POST /api/auth/logout', method: 'POST', request: () => ({ path: '/api/auth/logout' }), expected: row(200, 200, 200, 200, 200) },
+  {
+    route: 'POST /api/rf/search',
+    method: 'POST',
+    request: () => ({ path: '/api/rf/search', body: { z0: 50, frequencies: [902e6, 915e6, 928e6], load: { re: 18, im: -32 }, series: 'E12', maxElements: 1 } }),
+    expected: row(401, 200, 200, 200, 200),
+  },
 ]
 
 describe('role matrix', () => {
