@@ -1,5 +1,5 @@
-// The session cookie holds who (id, name) and which session version; everything else is read
-// from the database on each request.
+// The session cookie holds who (id, name), which session version, and the random id of its row in
+// the sessions table; everything else is read from the database on each request.
 declare module '#auth-utils' {
   interface User {
     id: number
@@ -7,6 +7,7 @@ declare module '#auth-utils' {
   }
   interface UserSession {
     sessionVersion: number
+    sid: string
   }
 }
 export {}

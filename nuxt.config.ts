@@ -14,6 +14,11 @@ export default defineNuxtConfig({
       meta: [{ name: 'description', content: 'Impedance matching on the reflection-coefficient plane, together.' }],
     },
   },
+  runtimeConfig: {
+    // The sealed cookie's absolute lifetime, in seconds: 30 days, the same as SESSION_MAX_MS in
+    // server/utils/sessions.ts (the server ends idle sessions sooner).
+    session: { maxAge: 30 * 24 * 60 * 60 },
+  },
   nitro: {
     experimental: { websocket: true },
     // Server worker threads, bundled into strings (server/workers/bundle.ts explains why).

@@ -10,6 +10,12 @@ export interface LiveBridge {
   editBoard<T>(boardId: string, edit: (doc: Y.Doc) => T): Promise<T>
   /** A member's role changed (null: removed); their open sockets are refreshed or closed. */
   refreshRole?(userId: number, workspaceId: number, role: Role | null): unknown
+  /** Closes every live socket of a user (their sessions have ended). */
+  closeSocketsOf?(userId: number): unknown
+  /** Closes the live sockets opened with one session (its hashed id), after sign-out. */
+  closeSession?(sessionKey: string): unknown
+  /** Closes every live socket of a deleted board, without saving its room again. */
+  closeBoard?(boardId: string): unknown
   /** Who has the board open right now (name and colour from their accounts). */
   presentIn?(boardId: string): { userId: number, name: string, colour: string }[]
 }

@@ -12,6 +12,7 @@ import { defineTemplate } from './template'
 import { defineUpload } from './upload'
 import { defineOutboxMessage } from './outbox-message'
 import { defineLoginFailure } from './login-failure'
+import { defineSession } from './session'
 
 function defineAll(sequelize: Sequelize) {
   const models = {
@@ -26,6 +27,7 @@ function defineAll(sequelize: Sequelize) {
     Upload: defineUpload(sequelize),
     OutboxMessage: defineOutboxMessage(sequelize),
     LoginFailure: defineLoginFailure(sequelize),
+    Session: defineSession(sequelize),
   }
   const { User, Workspace, Membership, Board, Snapshot, Template } = models
   Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' })
@@ -61,3 +63,4 @@ export * from './template'
 export * from './upload'
 export * from './outbox-message'
 export * from './login-failure'
+export * from './session'

@@ -18,6 +18,9 @@ export default defineNitroPlugin((nitroApp) => {
     editBoard: (boardId, edit) => useLiveHub().editBoard(boardId, edit),
     refreshRole: (userId, workspaceId, role) => existingLiveHub()?.refreshRole(userId, workspaceId, role) ?? 0,
     presentIn: boardId => existingLiveHub()?.presentIn(boardId) ?? [],
+    closeSocketsOf: userId => existingLiveHub()?.closeSocketsOf(userId, undefined, 'signed out') ?? 0,
+    closeSession: sessionKey => existingLiveHub()?.closeSession(sessionKey) ?? 0,
+    closeBoard: boardId => existingLiveHub()?.closeBoard(boardId) ?? 0,
   })
 
   nitroApp.hooks.hook('close', async () => {

@@ -2,6 +2,7 @@
 // the database, so sign-out-everywhere takes effect at once) and what they may do in a workspace.
 // What the caller may not see answers 404, exactly as if it did not exist.
 import type { H3Event } from 'h3'
+import { userOfSession, type SessionClaims } from './sessions'
 import {
   roleAtLeast, type BoardInstance, type MembershipInstance, type Role, type SnapshotInstance,
   type TemplateInstance, type UserInstance, type WorkspaceInstance,
@@ -23,22 +24,12 @@ export interface MemberAccess {
   template?: TemplateInstance
 }
 
-/** Starts a session for the user (after sign-in, sign-up or a password reset). */
-export async function startSession(event: H3Event, user: UserInstance): Promise<void> {
-  await replaceUserSession(event, { user: { id: user.id, name: user.name }, sessionVersion: user.sessionVersion })
-}
-
-/** The signed-in user, or null when there is no session or it has been ended elsewhere. */
+/** The signed-in user, or null when there is no session or it has ended (revoked, expired, version raised). */
 export async function currentUser(event: H3Event): Promise<UserInstance | null> {
   const session = await getUserSession(event)
-  const userId = session.user?.id
-  if (typeof userId !== 'number') return null
-  const { User } = await useModels()
-  const user = await User.findByPk(userId)
-  if (!user || user.sessionVersion !== session.sessionVersion) {
-    await clearUserSession(event)
-    return null
-  }
+  if (typeof session.user?.id !== 'number') return null
+  const user = await userOfSession(session)
+  if (!user) await clearUserSession(event)
   return user
 }
 
@@ -106,15 +97,11 @@ export async function requireMember(event: H3Event, target: AccessTarget, minimu
  * For the live server (no H3 event during a WebSocket upgrade): the role of a session's user on a
  * board, or null when the session is stale or the user may not see the board.
  */
-export async function boardRoleForSession(
-  session: { user?: { id?: number }, sessionVersion?: number },
-  boardId: string,
-): Promise<Role | null> {
-  const { User, Board, Membership } = await useModels()
-  const userId = session.user?.id
-  if (typeof userId !== 'number') return null
-  const user = await User.findByPk(userId, { attributes: ['id', 'sessionVersion'] })
-  if (!user || user.sessionVersion !== session.sessionVersion) return null
+export async function boardRoleForSession(session: SessionClaims, boardId: string): Promise<Role | null> {
+  const { Board, Membership } = await useModels()
+  const user = await userOfSession(session)
+  if (!user) return null
+  const userId = user.id
   const board = await Board.findByPk(boardId, { attributes: ['id', 'workspaceId'] })
   if (!board) return null
   const membership = await Membership.findOne({ where: { userId, workspaceId: board.workspaceId } })

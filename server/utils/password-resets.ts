@@ -14,7 +14,10 @@ export async function sendPasswordReset(event: H3Event, user: UserInstance): Pro
   await sendMail({ to: user.email, kind: 'password-reset', ...passwordResetMail({ name: user.name, link }) })
 }
 
-/** Uses the token (once) and sets the password; 400 for an unknown, used or expired link. */
+/**
+ * Uses the token (once) and sets the password; 400 for an unknown, used or expired link. Every
+ * session of the account ends and its live sockets close.
+ */
 export async function resetPassword(token: string, passwordHash: string): Promise<UserInstance> {
   const sequelize = await useDb()
   const { PasswordReset, User } = await useModels()
@@ -27,11 +30,15 @@ export async function resetPassword(token: string, passwordHash: string): Promis
     if (!reset || !user) {
       throw createError({ statusCode: 400, message: 'This reset link is invalid, already used or expired: ask for a new one.' })
     }
-    reset.usedAt = new Date()
-    await reset.save({ transaction })
+    // Every outstanding link of the account is used up with this one, not only the one clicked.
+    await PasswordReset.update({ usedAt: new Date() }, { where: { userId: user.id, usedAt: null }, transaction })
     user.passwordHash = passwordHash
     user.sessionVersion += 1
     await user.save({ transaction })
+    await revokeAllSessions(user.id, transaction)
+    return user
+  }).then((user) => {
+    closeUserSockets(user.id)
     return user
   })
 }

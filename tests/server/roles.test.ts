@@ -138,7 +138,6 @@ const ROWS: Row[] = [
     request: () => ({ path: '/api/invitations/unknown-token-unknown-token-0000/accept' }),
     expected: row(401, 404, 404, 404, 404),
   },
-  { route: 'POST /api/auth/logout', method: 'POST', request: () => ({ path: '/api/auth/logout' }), expected: row(200, 200, 200, 200, 200) },
   {
     route: 'POST /api/rf/search',
     method: 'POST',
@@ -192,5 +191,15 @@ describe('role matrix', () => {
     expect(res.json.author.name).toBe(DEMO_USERS.reviewer.name)
     const after = await call('admin', 'GET', `/api/boards/${boardId}`)
     expect(after.json.elements).toEqual(before.json.elements)
+  })
+
+  // Last: signing out revokes each persona's session on the server, so their cookies stop working.
+  it('POST /api/auth/logout', async () => {
+    const got: Record<string, number> = {}
+    for (const persona of PERSONAS) got[persona] = (await call(persona, 'POST', '/api/auth/logout')).status
+    expect(got).toEqual(row(200, 200, 200, 200, 200))
+    const after: Record<string, number> = {}
+    for (const persona of PERSONAS) after[persona] = (await call(persona, 'GET', '/api/auth/me')).status
+    expect(after).toEqual(row(401, 401, 401, 401, 401))
   })
 })

@@ -4,7 +4,7 @@ import sqlite3 from 'sqlite3'
 
 export const TABLES = [
   'users', 'workspaces', 'memberships', 'invitations', 'password_resets', 'boards', 'snapshots',
-  'templates', 'uploads', 'outbox', 'login_failures',
+  'templates', 'uploads', 'outbox', 'login_failures', 'sessions',
 ] as const
 
 function open(file: string, mode: number): Promise<sqlite3.Database> {

@@ -3,6 +3,7 @@
 // workspace. Every refusal is a Response, because anything else thrown in an upgrade leaves the
 // socket hanging instead of refusing it.
 import { boardRoleForSession } from '../access'
+import { sessionKey } from '../sessions'
 import { useModels } from '../db'
 import { presenceColourFor } from '../../../shared/live/presence'
 import type { LiveIdentity } from './types'
@@ -48,6 +49,8 @@ export async function admitPeer(request: Request): Promise<{ boardId: string, id
   const userId = session.user.id
   return {
     boardId,
-    identity: { userId, name: session.user.name, colour: presenceColourFor(userId), role, workspaceId: board.workspaceId },
+    identity: {
+      userId, name: session.user.name, colour: presenceColourFor(userId), role, workspaceId: board.workspaceId, sessionKey: sessionKey(session),
+    },
   }
 }

@@ -282,6 +282,22 @@ export function createLiveHub(options: LiveHubOptions) {
     return hits.length
   }
 
+  /** Closes the connections opened with one session (that session signed out); returns how many. */
+  function closeSession(sessionKey: string): number {
+    const hits = [...connections].filter(conn => conn.identity.sessionKey === sessionKey)
+    for (const conn of hits) drop(conn, CLOSE_ACCESS_REVOKED, 'signed out')
+    return hits.length
+  }
+
+  /** The board was deleted: its peers are closed and its room is dropped without another save. */
+  function closeBoard(boardId: string): number {
+    const room = rooms.get(boardId)
+    if (!room) return 0
+    const count = room.peers.size
+    failRoom(room, CLOSE_BOARD_GONE, 'board deleted')
+    return count
+  }
+
   /**
    * After a role change: connections holding another role are closed with a retryable code, so the
    * client reconnects and the upgrade grants the new role. A null role means the member was removed.
@@ -364,7 +380,7 @@ export function createLiveHub(options: LiveHubOptions) {
     return [...people.values()]
   }
 
-  return { join, receive, leave, closeSocketsOf, refreshRole, sweep, flushAll, shutdown, stats, openDoc, editBoard, presentIn }
+  return { join, receive, leave, closeSocketsOf, closeSession, closeBoard, refreshRole, sweep, flushAll, shutdown, stats, openDoc, editBoard, presentIn }
 }
 
 export type LiveHub = ReturnType<typeof createLiveHub>

@@ -14,6 +14,8 @@ export interface LiveIdentity {
   colour: string
   role: LiveRole
   workspaceId: number
+  /** The hashed id of the session that opened the connection (sign-out closes exactly these). */
+  sessionKey?: string
 }
 
 export interface BoardStateStore {
