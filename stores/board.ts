@@ -21,7 +21,7 @@ import { matchSolutions } from '#shared/board/solutions'
 import { partRows } from '#shared/board/parts'
 import { useBoardDoc } from '~/composables/useBoardDoc'
 import { useMeasuredStore } from '~/stores/measured'
-import { measuredCoverage, measuredUploadIds, splitByCoverage } from '#shared/board/measured'
+import { measuredCoverage, measuredPartUploadIds, measuredUploadIds, splitByCoverage } from '#shared/board/measured'
 
 export interface BoardRecordInput extends BoardContent {
   id: string
@@ -121,15 +121,18 @@ export const useBoardStore = defineStore('board', () => {
 
   // ---- measured files (uploads): fetched into the measured store, never into the document ----
   const measured = useMeasuredStore()
-  const measuredIds = computed(() => measuredUploadIds(settings.value, elements.value))
+  /** Terminals and blocks narrow the band to what their files cover; measured parts do not (their file must cover it). */
+  const coverageIds = computed(() => measuredUploadIds(settings.value, elements.value))
+  const measuredIds = computed(() => [...new Set([...coverageIds.value, ...measuredPartUploadIds(elements.value)])])
   /** True while a measured file the board names is not loaded yet (results then leave it out). */
   const isMeasuredPending = computed(() => measuredIds.value.some(id => !measured.files[id]))
   /** The range all loaded measured files cover, or null without any. */
-  const measuredRange = computed(() => measuredCoverage(measuredIds.value, measured.files))
+  const measuredRange = computed(() => measuredCoverage(coverageIds.value, measured.files))
   /** Blocks whose data has not arrived yet are left out until it does (isMeasuredPending says so). */
   function computable<E extends ElementJson>(ladder: readonly E[]): E[] {
     // The board's default Q goes to every L and C without its own, in every computation.
-    return withDefaultQ(ladder.filter(e => e.kind !== 'block' || measured.files[e.uploadId] !== undefined), settings.value.defaultQ)
+    return withDefaultQ(ladder.filter(e => e.kind === 'block' ? measured.files[e.uploadId] !== undefined
+      : !('measured' in e && e.measured) || measured.files[e.measured.uploadId] !== undefined), settings.value.defaultQ)
   }
   /** The ladder as every analysis reads it: draft, default Q and line fRef applied, pending blocks left out. */
   const analysisLadder = computed(() => withReferenceFrequency(computable(settledElements.value), frequencyHz.value))

@@ -19,6 +19,19 @@ export function measuredUploadIds(settings: Pick<BoardSettings, 'load' | 'source
 }
 
 /**
+ * The upload ids of the board's fixture-measured parts. They are fetched like the others but do
+ * not narrow the band: a part's file that does not cover the band is refused, not worked around.
+ */
+export function measuredPartUploadIds(elements: readonly Pick<BoardElement, 'kind'>[]): string[] {
+  const ids = new Set<string>()
+  for (const e of elements) {
+    const measured = (e as { measured?: { uploadId: string } }).measured
+    if ((e.kind === 'L' || e.kind === 'C') && measured) ids.add(measured.uploadId)
+  }
+  return [...ids]
+}
+
+/**
  * The range every measured file of the board covers (the intersection), or null when the board
  * has none loaded. An empty intersection has fMinHz > fMaxHz.
  */

@@ -40,6 +40,8 @@ const lumpedFields = {
   iRatingA: positive.optional(),
   /** L and C: the real part's parasitics and loss by frequency; absent, the part is ideal. */
   model: PartModelSchema.optional(),
+  /** L and C: the part is its maker's fixture measurement (a .s2p upload), used instead of value and model. */
+  measured: z.object({ uploadId: z.string().min(1).max(100), fixture: z.enum(['series', 'shunt']) }).strict().optional(),
   /** The workspace parts-library identifier of the part this element is (its model copied in). */
   partId: z.string().min(1).max(64).optional(),
 }

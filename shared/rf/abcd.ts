@@ -16,7 +16,7 @@
  */
 import type { Element } from './types'
 import { applyElementToPoints, createPoints } from './points'
-import { blockAbcd, type BlockLookup } from './twoport'
+import { hasMeasuredData, measuredAbcd, type BlockLookup } from './twoport'
 import { hasModel, padPiAbcd, padSusceptance, type ModelledPart } from './models'
 
 /** ABCD matrices of one element at n frequencies, as flat arrays (A, B in Ω, C in S, D plain). */
@@ -45,9 +45,9 @@ function emptyAbcd(n: number): FlatAbcd {
 }
 
 /** A measured block's chain matrices (twoport.ts `blockAbcd`, interpolated from its S) as flat arrays. */
-function measuredAbcdFlat(element: Extract<Element, { kind: 'block' }>, frequenciesHz: ArrayLike<number>, blocks: BlockLookup | undefined, path: string): FlatAbcd {
+function measuredAbcdFlat(element: Element, frequenciesHz: ArrayLike<number>, blocks: BlockLookup | undefined, path: string): FlatAbcd {
   const out = emptyAbcd(frequenciesHz.length)
-  blockAbcd(element, blocks, frequenciesHz, { path }).forEach((m, k) => {
+  measuredAbcd(element, blocks, frequenciesHz, { path }).forEach((m, k) => {
     out.aRe[k] = m.a.re; out.aIm[k] = m.a.im; out.bRe[k] = m.b.re; out.bIm[k] = m.b.im
     out.cRe[k] = m.c.re; out.cIm[k] = m.c.im; out.dRe[k] = m.d.re; out.dIm[k] = m.d.im
   })
@@ -60,7 +60,7 @@ function measuredAbcdFlat(element: Extract<Element, { kind: 'block' }>, frequenc
  * `path` names the element in errors.
  */
 export function elementAbcdFlat(element: Element, frequenciesHz: ArrayLike<number>, blocks?: BlockLookup, path = 'element'): FlatAbcd {
-  if (element.kind === 'block') return measuredAbcdFlat(element, frequenciesHz, blocks, path)
+  if (hasMeasuredData(element)) return measuredAbcdFlat(element, frequenciesHz, blocks, path)
   // A modelled series part's pads make it a pi (D ≠ 1): the part alone from the kernel, then the pads.
   if (hasModel(element) && element.placement === 'series' && element.model.padC) {
     return withPads(elementAbcdFlat({ ...element, model: { ...element.model, padC: 0 } }, frequenciesHz), element, frequenciesHz)

@@ -28,6 +28,7 @@ import type { Complex, Element, LumpedElement, LineElement, StubElement } from '
 import { OPEN, isInfinite } from './complex'
 import { RfInputError } from './errors'
 import { hasModel } from './models'
+import { isMeasuredPart } from './fixture'
 import { dragModelled, modelledLocus } from './drag-model'
 
 // ---- loci in the Γ plane ------------------------------------------------------------------
@@ -106,7 +107,7 @@ export interface DragResult {
 
 /** True for the elements that have a handle on the chart (all but the transformer and a measured block). */
 export function isDraggable(element: Element): boolean {
-  return element.kind !== 'xfmr' && element.kind !== 'block'
+  return element.kind !== 'xfmr' && element.kind !== 'block' && !isMeasuredPart(element)
 }
 
 /** The field a drag of this element changes. */
@@ -128,7 +129,7 @@ export const DRAG_T_MAX = 1e6
  * on a short, a line matched to its own Zc) or the element is a transformer.
  */
 export function dragLocus(element: Element, zPrev: Complex, z0: number, frequencyHz: number): GammaLocus | null {
-  if (element.kind === 'xfmr' || element.kind === 'block') return null
+  if (element.kind === 'xfmr' || element.kind === 'block' || isMeasuredPart(element)) return null
   if (element.kind === 'line') return lineLocus(element, zPrev, z0)?.locus ?? null
   if (hasModel(element)) return canMove(element, zPrev) ? modelledLocus(element, zPrev, z0, frequencyHz) : null
   const ray = rayOf(element, zPrev, z0, frequencyHz)
@@ -145,6 +146,7 @@ export function dragElement(input: DragInput): DragResult {
   const { element, zPrev, z0, frequencyHz } = input
   if (element.kind === 'xfmr') throw new RfInputError('element', 'a transformer is not draggable: type its ratio')
   if (element.kind === 'block') throw new RfInputError('element', 'a measured block is not draggable')
+  if (isMeasuredPart(element)) throw new RfInputError('element', 'a measured part is its file: it is not draggable')
   if (element.kind === 'line') return dragLine(element, input)
   if (hasModel(element) && canMove(element, zPrev)) return dragModelled(element, input)
   const ray = rayOf(element, zPrev, z0, frequencyHz)

@@ -9,6 +9,7 @@ import { RfInputError, describe, requireNonNegative, requirePositive } from './e
 import { OPEN, SHORT, asComplex } from './complex'
 import { applyElementToPoints, createPoints, readAdmittance, readImpedance, setPoint } from './points'
 import { validatePartModel } from './models'
+import { validateMeasuredPart } from './fixture'
 
 /** Options for `validateElement`. */
 export type ElementCheck = {
@@ -54,6 +55,7 @@ export function validateElement(value: unknown, path: string, check: ElementChec
       requireNonNegative(e.value, `${path}.value`)
       if (e.q !== undefined) requirePositive(e.q, `${path}.q`)
       if (e.model !== undefined) validatePartModel(e.model, kind, `${path}.model`)
+      if (e.measured !== undefined) validateMeasuredPart(e.measured, kind, `${path}.measured`)
       if (e.tolerance !== undefined) {
         const t = requireNonNegative(e.tolerance, `${path}.tolerance`)
         if (t >= 1) throw new RfInputError(`${path}.tolerance`, `is a fraction and must be below 1, got ${t}`)

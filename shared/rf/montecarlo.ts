@@ -28,7 +28,7 @@ import { requireFrequency, validateElements } from './elements'
 import { applyElementToPoints, createPoints, setPoint, type PointBuffer } from './points'
 import { isUniformGrid } from './angles'
 import type { Reference } from './gamma'
-import { applyAbcdToPoints, blockAbcd, type Abcd, type BlockLookup } from './twoport'
+import { applyAbcdToPoints, hasMeasuredData, measuredAbcd, type Abcd, type BlockLookup } from './twoport'
 
 export type ToleranceDistribution = 'uniform' | 'gaussian'
 
@@ -163,13 +163,14 @@ export function createMonteCarlo(input: MonteCarloInput): MonteCarloRun {
   const trialElements = elements.map(e => ({ ...e })) as Element[]
   // Measured blocks do not vary: their chain matrices are taken once, at the run's frequencies.
   const blockMatrices: (Abcd[] | null)[] = elements.map((e, i) =>
-    e.kind === 'block' ? blockAbcd(e, input.blocks, freqs, { path: `elements[${i}]` }) : null)
+    hasMeasuredData(e) ? measuredAbcd(e, input.blocks, freqs, { path: `elements[${i}]` }) : null)
   const designBlockMatrices: (Abcd[] | null)[] = elements.map((e, i) =>
-    e.kind === 'block' ? blockAbcd(e, input.blocks, designFreqs, { path: `elements[${i}]`, range: 'nearest' }) : null)
+    hasMeasuredData(e) ? measuredAbcd(e, input.blocks, designFreqs, { path: `elements[${i}]`, range: 'nearest' }) : null)
   const variations: Variation[] = []
   trialElements.forEach((e, i) => {
     const h = toleranceHalfWidth(elements[i]!)
-    if (h > 0 && (e.kind === 'L' || e.kind === 'C' || e.kind === 'R')) {
+    // A measured part is its file: it does not vary.
+    if (h > 0 && (e.kind === 'L' || e.kind === 'C' || e.kind === 'R') && !hasMeasuredData(e)) {
       variations.push({ element: e as unknown as { value: number }, nominal: e.value, halfWidth: h })
     }
   })

@@ -9,7 +9,7 @@ import { OPEN, asComplex, divideInto, isInfinite } from './complex'
 import { validateElements } from './elements'
 import { applyElementToPoints, asFloat64, createPoints, setPoint, type PointBuffer } from './points'
 import { isUniformGrid } from './angles'
-import { applyLadderElement, type BlockLookup } from './twoport'
+import { applyLadderElement, hasMeasuredData, type BlockLookup } from './twoport'
 
 /** Arguments of `sweep`. `load` is one impedance for every frequency or one per frequency. */
 export type SweepInput = {
@@ -92,7 +92,7 @@ function sweepPoints(input: SweepInput): { p: PointBuffer; frequencies: Float64A
   const p = loadPoints(input.load, frequencies.length)
   const uniformGrid = isUniformGrid(frequencies)
   elements.forEach((e, i) => {
-    if (e.kind === 'block') applyLadderElement(p, e, frequencies, input.blocks, `elements[${i}]`)
+    if (hasMeasuredData(e)) applyLadderElement(p, e, frequencies, input.blocks, `elements[${i}]`)
     // Rescaling every fourth element is enough: four parts cannot take a pair from 1e100 to overflow.
     else applyElementToPoints(p, e, frequencies, { uniformGrid, rescale: i % 4 === 3 })
   })

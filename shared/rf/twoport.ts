@@ -21,6 +21,7 @@ import { isInfinite } from './complex'
 import { electricalDegrees, elementAdmittance, elementImpedance, validateElements, requireFrequency } from './elements'
 import { applyElementToPoints, rescale, type PointBuffer } from './points'
 import { interpolateMatrices, rangeOf, type InterpolationMode } from './interpolate'
+import { isMeasuredPart, measuredPartImpedances } from './fixture'
 import { hasModel, padPiAbcd, padSusceptance, type ModelledPart } from './models'
 
 /** A chain matrix [[a, b], [c, d]]: (V1, I1) = M·(V2, I2), I2 flowing out of port 2. b in Ω, c in S. */
@@ -127,6 +128,34 @@ export function blockAbcd(
   return values.map(s => sToAbcd(s!, data.z0))
 }
 
+/** True for elements whose data comes from a measured file: a block, or a fixture-measured L or C part. */
+export function hasMeasuredData(element: Element): boolean {
+  return element.kind === 'block' || isMeasuredPart(element)
+}
+
+/**
+ * The chain matrices of an element with measured data (see `hasMeasuredData`) at each frequency:
+ * a block from its S (`blockAbcd`); a fixture-measured part as a series [[1, Z], [0, 1]] or shunt
+ * [[1, 0], [1/Z, 1]] part with Z from its file (fixture.ts). Throws outside the file's range
+ * (unless `range: 'nearest'`) and where the part blocks the signal.
+ */
+export function measuredAbcd(
+  element: Element, blocks: BlockLookup | undefined, frequenciesHz: ArrayLike<number>,
+  options: { path?: string; range?: BlockRange } = {},
+): Abcd[] {
+  if (element.kind === 'block') return blockAbcd(element, blocks, frequenciesHz, options)
+  if (!isMeasuredPart(element)) throw new RfInputError(options.path ?? 'element', 'has no measured data')
+  const isSeries = element.placement === 'series'
+  return measuredPartImpedances(element, blocks, frequenciesHz, options).map((z, k) => {
+    if (isSeries) {
+      if (isInfinite(z)) throw new RfInputError(options.path ?? 'element', `the measured part is an open at ${frequenciesHz[k]} Hz and blocks the path`)
+      return { a: ONE, b: z, c: ZERO, d: ONE }
+    }
+    if (z.re === 0 && z.im === 0) throw new RfInputError(options.path ?? 'element', `the measured part is a short at ${frequenciesHz[k]} Hz and blocks the path`)
+    return { a: ONE, b: ZERO, c: isInfinite(z) ? ZERO : div(ONE, z), d: ONE }
+  })
+}
+
 /** Applies chain matrices to homogeneous impedance points (points.ts): (a, b) → (A·a + B·b, C·a + D·b). */
 export function applyAbcdToPoints(p: PointBuffer, matrices: readonly Abcd[]): void {
   const { n, aRe, aIm, bRe, bIm } = p
@@ -149,7 +178,7 @@ export function applyLadderElement(
   p: PointBuffer, element: Element, frequenciesHz: ArrayLike<number>,
   blocks: BlockLookup | undefined, path: string, range: BlockRange = 'strict',
 ): void {
-  if (element.kind === 'block') applyAbcdToPoints(p, blockAbcd(element, blocks, frequenciesHz, { path, range }))
+  if (hasMeasuredData(element)) applyAbcdToPoints(p, measuredAbcd(element, blocks, frequenciesHz, { path, range }))
   else applyElementToPoints(p, element, frequenciesHz)
 }
 
@@ -171,6 +200,7 @@ export function elementAbcd(element: Element, frequencyHz: number, blocks?: Bloc
     case 'block':
       return blockAbcd(element, blocks, [frequencyHz], { path })[0]!
     default: {
+      if (isMeasuredPart(element)) return measuredAbcd(element, blocks, [frequencyHz], { path })[0]!
       if (element.placement === 'series') {
         // A modelled part's own Z (its pads left out), then its pads to ground at both ends.
         const z = elementImpedance(element, frequencyHz)

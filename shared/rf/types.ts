@@ -28,6 +28,14 @@ export type LumpedElement = {
   readonly tolerance?: number
   /** L and C only: a real part's parasitics and loss by frequency (models.ts); absent, the part is ideal. */
   readonly model?: PartModel
+  /** L and C only: the part is its maker's fixture measurement (fixture.ts); value and model are then nominal only. */
+  readonly measured?: MeasuredPart
+}
+
+/** A part measured by its maker in a series-through or shunt-through fixture: a .s2p upload. */
+export type MeasuredPart = {
+  readonly uploadId: string
+  readonly fixture: 'series' | 'shunt'
 }
 
 /**
