@@ -24,6 +24,7 @@ export default defineNuxtConfig({
     // Server worker threads, bundled into strings (server/workers/bundle.ts explains why).
     virtual: {
       '#search-worker-source': () => workerSourceModule('server/workers/search-run.ts'),
+      '#touchstone-worker-source': () => workerSourceModule('server/workers/touchstone-parse.ts'),
     },
   },
   vite: {

@@ -1,28 +1,31 @@
-// Measured Touchstone files kept per workspace: reading an uploaded file into parsed data (a
-// TouchstoneError becomes a 422 naming the line), storing it, and fetching it back.
+// Measured Touchstone files kept per workspace: reading an uploaded file into parsed data in a
+// worker thread (a TouchstoneError becomes a 422 naming the line), storing it, and fetching it back.
 import { randomUUID } from 'node:crypto'
-import { TouchstoneError, parseTouchstone, type TouchstoneData } from '../../shared/rf/index'
+import type { TouchstoneData, TouchstoneLimits } from '../../shared/rf/index'
 import type { UploadedFile } from './upload'
 import type { UploadRow } from '../models'
+import type { TouchstoneSummary } from '../workers/touchstone-protocol'
 
-/** The parsed file, or a 422 with `data: { line, column?, code }` saying where it went wrong. */
-export function parseUploadedTouchstone(upload: Pick<UploadedFile, 'data' | 'fileName'>): TouchstoneData {
-  try {
-    return parseTouchstone(upload.data.toString('utf8'), upload.fileName)
-  }
-  catch (error) {
-    if (error instanceof TouchstoneError) {
-      const where = error.column === undefined ? { line: error.line } : { line: error.line, column: error.column }
-      throw createError({ statusCode: 422, message: error.message, data: { ...where, code: error.code } })
-    }
-    throw error
-  }
+/**
+ * What an uploaded file may hold. The product uses one- and two-ports only, and refuses others
+ * before the reader lays anything out. 20,001 frequencies is more than one sweep of common bench
+ * network analysers (common practice); with the 8 MiB JSON cap it bounds both the answer of
+ * POST /api/rf/touchstone and the parsed text each stored upload keeps.
+ */
+export const MEASURED_LIMITS: Readonly<Required<TouchstoneLimits>> = { maxPorts: 2, maxFrequencies: 20_001 }
+export const MEASURED_MAX_JSON_CHARS = 8 * 1024 * 1024
+
+/**
+ * The parsed file as JSON text with its summary, read in the worker thread; a 422 with
+ * `data: { line, column?, code }` saying where it went wrong.
+ */
+export function parseUploadedTouchstone(upload: Pick<UploadedFile, 'data' | 'fileName'>) {
+  return parseTouchstoneOffThread(upload.data, upload.fileName, MEASURED_LIMITS, MEASURED_MAX_JSON_CHARS)
 }
 
 /** What the upload route answers: enough for the board to say what came in. */
-export function uploadSummary(row: Pick<UploadRow, 'id' | 'fileName'>, parsed: TouchstoneData) {
-  const f = parsed.frequencies
-  return { id: row.id, fileName: row.fileName, ports: parsed.ports, frequencies: f.length, fMinHz: f[0]!, fMaxHz: f[f.length - 1]! }
+export function uploadSummary(row: Pick<UploadRow, 'id' | 'fileName'>, summary: TouchstoneSummary) {
+  return { id: row.id, fileName: row.fileName, ...summary }
 }
 
 export interface NewUpload {
@@ -31,7 +34,9 @@ export interface NewUpload {
   uploadedBy: number
   fileName: string
   sizeBytes: number
-  parsed: TouchstoneData
+  /** The parsed data as JSON text (parseUploadedTouchstone). */
+  parsedJson: string
+  summary: TouchstoneSummary
 }
 
 /** Stores a parsed measured file with its workspace and board; answers its summary. */
@@ -44,9 +49,9 @@ export async function storeMeasuredUpload(input: NewUpload) {
     uploadedBy: input.uploadedBy,
     fileName: input.fileName,
     sizeBytes: input.sizeBytes,
-    parsed: JSON.stringify(input.parsed),
+    parsed: input.parsedJson,
   })
-  return uploadSummary(row, input.parsed)
+  return uploadSummary(row, input.summary)
 }
 
 /** An upload's row (without its parsed text) and its workspace's slug, or null. */

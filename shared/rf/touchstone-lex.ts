@@ -8,7 +8,7 @@ export type TouchstoneErrorCode =
   | 'empty' | 'no-data' | 'missing-option-line' | 'bad-option-line' | 'non-numeric'
   | 'wrong-column-count' | 'frequency-not-increasing' | 'negative-frequency' | 'out-of-range'
   | 'unknown-port-count' | 'bad-keyword' | 'unknown-keyword' | 'unsupported' | 'frequency-count'
-  | 'bad-argument'
+  | 'bad-argument' | 'port-count' | 'too-many-frequencies'
 
 /**
  * A file that cannot be read. `line` is 1-based (null when the problem is the file as a whole,
@@ -22,7 +22,8 @@ export class TouchstoneError extends RfInputError {
   readonly fileName: string
 
   constructor(code: TouchstoneErrorCode, detail: string, fileName: string, line: number | null, column?: number) {
-    const where = line === null ? fileName : `${fileName} line ${line}${column ? `, column ${column}` : ''}`
+    const shownName = quoteToken(fileName)
+    const where = line === null ? shownName : `${shownName} line ${line}${column ? `, column ${column}` : ''}`
     super('text', detail)
     this.message = `${where}: ${detail}`
     this.name = 'TouchstoneError'
@@ -32,6 +33,31 @@ export class TouchstoneError extends RfInputError {
     this.fileName = fileName
   }
 }
+
+/** Longest piece of the file (a token, a keyword, a file name) quoted in a message. */
+const QUOTE_MAX_CHARS = 40
+
+/**
+ * A token as shown in an error message: cut to 40 characters with an ellipsis, so a message
+ * never echoes a huge line (a 20 MB "token") back to the caller.
+ */
+export function quoteToken(token: string): string {
+  return token.length <= QUOTE_MAX_CHARS ? token : `${token.slice(0, QUOTE_MAX_CHARS)}…`
+}
+
+/** How much a file may hold; checked as the file is read, before anything is laid out for it. */
+export interface TouchstoneLimits {
+  /** Most ports (default TOUCHSTONE_MAX_PORTS): an N-port record lays out N² values. */
+  maxPorts?: number
+  /** Most frequencies in the network data, and in the noise block (default: no limit). */
+  maxFrequencies?: number
+}
+
+/**
+ * The reader's own ceiling on ports: 64² values per frequency is already far beyond any
+ * measured file; a name such as `x.s12000p` must not make it lay out 144 million values.
+ */
+export const TOUCHSTONE_MAX_PORTS = 64
 
 export type FrequencyUnit = 'HZ' | 'KHZ' | 'MHZ' | 'GHZ'
 export type NetworkParameter = 'S' | 'Y' | 'Z' | 'H' | 'G'
@@ -119,11 +145,11 @@ export function scanNumbers(text: string, end: number, out: Float64Array, offset
     while (i < end && !isSpace(text.charCodeAt(i))) i++
     const value = readDecimal(text, start, i)
     if (Number.isNaN(value)) {
-      throw new TouchstoneError('non-numeric', `token '${text.slice(start, i)}' is not a number (expected a decimal number such as 0.25 or -1.5e-3)`,
+      throw new TouchstoneError('non-numeric', `token '${quoteToken(text.slice(start, i))}' is not a number (expected a decimal number such as 0.25 or -1.5e-3)`,
         where.fileName, where.lineNumber, start + 1)
     }
     if (!Number.isFinite(value)) {
-      throw new TouchstoneError('out-of-range', `number '${text.slice(start, i)}' is too large for a double (expected a finite number)`,
+      throw new TouchstoneError('out-of-range', `number '${quoteToken(text.slice(start, i))}' is too large for a double (expected a finite number)`,
         where.fileName, where.lineNumber, start + 1)
     }
     const slot = offset + count
@@ -165,15 +191,15 @@ export function parseOptionLine(text: string, hashIndex: number, where: LineCont
     const token = tokens[t]!
     const upper = token.text.toUpperCase()
     if (upper in UNIT_SCALE) {
-      if (unit) fail(`repeated frequency unit '${token.text}' (one of HZ, KHZ, MHZ, GHZ expected once)`, token.column)
+      if (unit) fail(`repeated frequency unit '${quoteToken(token.text)}' (one of HZ, KHZ, MHZ, GHZ expected once)`, token.column)
       unit = upper as FrequencyUnit
     }
     else if (PARAMETERS.has(upper)) {
-      if (parameter) fail(`repeated parameter '${token.text}' (one of S, Y, Z, H, G expected once)`, token.column)
+      if (parameter) fail(`repeated parameter '${quoteToken(token.text)}' (one of S, Y, Z, H, G expected once)`, token.column)
       parameter = upper as NetworkParameter
     }
     else if (FORMATS.has(upper)) {
-      if (format) fail(`repeated format '${token.text}' (one of RI, MA, DB expected once)`, token.column)
+      if (format) fail(`repeated format '${quoteToken(token.text)}' (one of RI, MA, DB expected once)`, token.column)
       format = upper as DataFormat
     }
     else if (upper === 'R') {
@@ -185,7 +211,7 @@ export function parseOptionLine(text: string, hashIndex: number, where: LineCont
       t++
     }
     else {
-      fail(`unknown option token '${token.text}' (expected a unit HZ/KHZ/MHZ/GHZ, a parameter S/Y/Z/H/G, a format RI/MA/DB or 'R <ohms>')`, token.column)
+      fail(`unknown option token '${quoteToken(token.text)}' (expected a unit HZ/KHZ/MHZ/GHZ, a parameter S/Y/Z/H/G, a format RI/MA/DB or 'R <ohms>')`, token.column)
     }
   }
   return { unit: unit ?? 'GHZ', parameter: parameter ?? 'S', format: format ?? 'MA', referenceOhms: referenceOhms ?? 50 }

@@ -74,7 +74,8 @@ export class RecordReader {
   private lastFrequency = Number.NEGATIVE_INFINITY
   private readonly scale: number
 
-  constructor(private readonly layout: RecordLayout, private readonly format: DataFormat, unit: FrequencyUnit, private readonly fileName: string) {
+  constructor(private readonly layout: RecordLayout, private readonly format: DataFormat, unit: FrequencyUnit, private readonly fileName: string,
+    private readonly maxFrequencies = Number.POSITIVE_INFINITY) {
     this.buffer = new Float64Array(Math.max(layout.recordLength, NOISE_ROW))
     this.scale = UNIT_SCALE[unit]
   }
@@ -150,6 +151,7 @@ export class RecordReader {
   private commitRecord(): void {
     const { buffer, layout } = this
     const n = layout.ports
+    if (this.frequencies.length >= this.maxFrequencies) this.tooMany(this.recordLine)
     this.frequencies.push(this.checkFrequency(buffer[0]!, this.recordLine, this.recordColumn))
     const places = layout.placeOfValue
     // Fast paths build the small matrices as literals (packed arrays, fewer allocations).
@@ -181,6 +183,7 @@ export class RecordReader {
 
   private commitNoise(line: number, column: number): void {
     const b = this.buffer
+    if (this.noise.length >= this.maxFrequencies) this.tooMany(line)
     const frequencyHz = this.checkFrequency(b[0]!, line, column)
     const angle = b[3]! * DEG
     this.noise.push({ frequencyHz, nfminDb: b[1]!, gammaOpt: { re: b[2]! * Math.cos(angle), im: b[2]! * Math.sin(angle) }, rnNormalized: b[4]! })
@@ -192,6 +195,10 @@ export class RecordReader {
     if (!Number.isFinite(magnitude)) this.fail('out-of-range', `${a} dB is too large a magnitude`, this.recordLine)
     const angle = b * DEG
     return { re: magnitude * Math.cos(angle), im: magnitude * Math.sin(angle) }
+  }
+
+  private tooMany(line: number): never {
+    throw new TouchstoneError('too-many-frequencies', `more than ${this.maxFrequencies} frequencies (the most this reader takes)`, this.fileName, line)
   }
 
   private fail(code: 'wrong-column-count' | 'frequency-not-increasing' | 'negative-frequency' | 'out-of-range', detail: string, line: number, column?: number): never {

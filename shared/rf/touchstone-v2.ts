@@ -2,7 +2,7 @@
 // [Number of Frequencies], [Number of Noise Frequencies], [Reference], [Matrix Format],
 // [Begin Information]/[End Information], [Network Data], [Noise Data], [End]. Keyword names are
 // case-insensitive. The set and its rules are recalled from memory, not copied from the standard.
-import { TouchstoneError, readDecimal, scanNumbers, tokensOf, type LineContext, type OptionLine } from './touchstone-lex'
+import { TouchstoneError, quoteToken, readDecimal, scanNumbers, tokensOf, type LineContext, type OptionLine } from './touchstone-lex'
 import { RecordReader, makeLayout } from './touchstone-records'
 
 type MatrixFormat = 'full' | 'lower' | 'upper'
@@ -23,7 +23,7 @@ export class V2Header {
   private isNetworkCounted = false
   private readonly scratch = new Float64Array(64)
 
-  constructor(private readonly fileName: string) {}
+  constructor(private readonly fileName: string, private readonly limits: { maxPorts: number, maxFrequencies: number }) {}
 
   /** True for the lines of an information block, which are skipped whatever they hold. */
   isInInformation(line: string): boolean {
@@ -41,37 +41,44 @@ export class V2Header {
     const close = text.indexOf(']', first)
     if (close < 0) this.fail('bad-keyword', `keyword without a closing ']' (expected e.g. [Number of Ports] 2)`, where, first + 1)
     const keyword = text.slice(first + 1, close).trim().toLowerCase().replace(/\s+/g, ' ')
+    const named = quoteToken(keyword)
     const args = tokensOf(text, close + 1)
     if (this.hasEnded) return undefined
-    if (!this.version && keyword !== 'version') this.fail('bad-keyword', `[${keyword}] before [Version] (a Touchstone 2 file starts with [Version] 2.0)`, where, first + 1)
+    if (!this.version && keyword !== 'version') this.fail('bad-keyword', `[${named}] before [Version] (a Touchstone 2 file starts with [Version] 2.0)`, where, first + 1)
     if (this.missingReferences > 0) this.fail('bad-keyword', `[Reference] needs ${this.missingReferences} more value(s), one per port`, where, first + 1)
     const arg = (what: string): string => {
-      if (args.length !== 1) this.fail('bad-keyword', `[${keyword}] needs exactly one value: ${what}`, where, close + 2)
+      if (args.length !== 1) this.fail('bad-keyword', `[${named}] needs exactly one value: ${what}`, where, close + 2)
       return args[0]!.text.toLowerCase()
     }
     const count = (what: string): number => {
       const value = arg(what)
       const n = readDecimal(value, 0, value.length)
-      if (!Number.isInteger(n) || n < 1) this.fail('bad-keyword', `[${keyword}] needs ${what}, got '${args[0]!.text}'`, where, args[0]!.column)
+      if (!Number.isInteger(n) || n < 1) this.fail('bad-keyword', `[${named}] needs ${what}, got '${quoteToken(args[0]!.text)}'`, where, args[0]!.column)
       return n
     }
     switch (keyword) {
       case 'version': {
         if (this.version) this.fail('bad-keyword', '[Version] given twice', where, first + 1)
         const value = arg('the version 2.0')
-        if (value !== '2.0' && value !== '2.1') this.fail('unsupported', `Touchstone version '${args[0]!.text}' is not supported (expected 2.0 or 2.1)`, where, args[0]!.column)
+        if (value !== '2.0' && value !== '2.1') this.fail('unsupported', `Touchstone version '${quoteToken(args[0]!.text)}' is not supported (expected 2.0 or 2.1)`, where, args[0]!.column)
         this.version = value
         return undefined
       }
-      case 'number of ports': this.ports = count('a whole number of ports, 1 or more'); return undefined
+      case 'number of ports': {
+        const ports = count('a whole number of ports, 1 or more')
+        // Refused here, before [Network Data] lays out ports² values per frequency.
+        if (ports > this.limits.maxPorts) this.fail('port-count', `${ports} ports: this reader takes 1 to ${this.limits.maxPorts}`, where, args[0]!.column)
+        this.ports = ports
+        return undefined
+      }
       case 'two-port data order': {
         const value = arg('12_21 or 21_12')
-        if (value !== '12_21' && value !== '21_12') this.fail('bad-keyword', `[Two-Port Data Order] must be 12_21 or 21_12, got '${args[0]!.text}'`, where, args[0]!.column)
+        if (value !== '12_21' && value !== '21_12') this.fail('bad-keyword', `[Two-Port Data Order] must be 12_21 or 21_12, got '${quoteToken(args[0]!.text)}'`, where, args[0]!.column)
         this.order = value
         return undefined
       }
-      case 'number of frequencies': this.frequencyCount = count('a whole number of frequencies, 1 or more'); return undefined
-      case 'number of noise frequencies': this.noiseCount = count('a whole number of noise frequencies, 1 or more'); return undefined
+      case 'number of frequencies': this.frequencyCount = this.frequencyLimited(count('a whole number of frequencies, 1 or more'), where, args[0]!.column); return undefined
+      case 'number of noise frequencies': this.noiseCount = this.frequencyLimited(count('a whole number of noise frequencies, 1 or more'), where, args[0]!.column); return undefined
       case 'reference': {
         if (this.ports === undefined) this.fail('bad-keyword', '[Reference] before [Number of Ports]', where, first + 1)
         this.references = []
@@ -81,7 +88,7 @@ export class V2Header {
       }
       case 'matrix format': {
         const value = arg('Full, Lower or Upper')
-        if (value !== 'full' && value !== 'lower' && value !== 'upper') this.fail('bad-keyword', `[Matrix Format] must be Full, Lower or Upper, got '${args[0]!.text}'`, where, args[0]!.column)
+        if (value !== 'full' && value !== 'lower' && value !== 'upper') this.fail('bad-keyword', `[Matrix Format] must be Full, Lower or Upper, got '${quoteToken(args[0]!.text)}'`, where, args[0]!.column)
         this.matrix = value as MatrixFormat
         return undefined
       }
@@ -102,7 +109,7 @@ export class V2Header {
         this.hasEnded = true
         return undefined
       default:
-        this.fail('unknown-keyword', `unknown keyword [${keyword}]`, where, first + 1)
+        this.fail('unknown-keyword', `unknown keyword [${named}]`, where, first + 1)
     }
   }
 
@@ -144,7 +151,7 @@ export class V2Header {
     if (this.ports === 2 && !this.order) missing('[Two-Port Data Order] (required for two-port files)')
     this.sawNetworkData = true
     const layout = makeLayout(this.ports!, { matrix: this.matrix, order21Before12: this.order === '21_12', canWrap: true })
-    return new RecordReader(layout, this.options!.format, this.options!.unit, this.fileName)
+    return new RecordReader(layout, this.options!.format, this.options!.unit, this.fileName, this.limits.maxFrequencies)
   }
 
   private checkNetworkCount(reader: RecordReader, line: number): void {
@@ -165,7 +172,12 @@ export class V2Header {
     }
   }
 
-  private fail(code: 'bad-keyword' | 'unknown-keyword' | 'unsupported', detail: string, where: LineContext, column?: number): never {
+  private frequencyLimited(n: number, where: LineContext, column: number): number {
+    if (n > this.limits.maxFrequencies) this.fail('too-many-frequencies', `${n} frequencies: this reader takes at most ${this.limits.maxFrequencies}`, where, column)
+    return n
+  }
+
+  private fail(code: 'bad-keyword' | 'unknown-keyword' | 'unsupported' | 'port-count' | 'too-many-frequencies', detail: string, where: LineContext, column?: number): never {
     throw new TouchstoneError(code, detail, this.fileName, where.lineNumber, column)
   }
 }

@@ -16,13 +16,13 @@
  */
 import type { Complex } from './types'
 import {
-  TouchstoneError, parseOptionLine,
-  type DataFormat, type FrequencyUnit, type LineContext, type NetworkParameter, type OptionLine,
+  TOUCHSTONE_MAX_PORTS, TouchstoneError, parseOptionLine, quoteToken,
+  type DataFormat, type TouchstoneLimits, type FrequencyUnit, type LineContext, type NetworkParameter, type OptionLine,
 } from './touchstone-lex'
 import { RecordReader, makeLayout, type NoiseParameters } from './touchstone-records'
 import { V2Header } from './touchstone-v2'
 
-export { TouchstoneError, type TouchstoneErrorCode, type FrequencyUnit, type NetworkParameter, type DataFormat } from './touchstone-lex'
+export { TOUCHSTONE_MAX_PORTS, TouchstoneError, type TouchstoneErrorCode, type TouchstoneLimits, type FrequencyUnit, type NetworkParameter, type DataFormat } from './touchstone-lex'
 export type { NoiseParameters } from './touchstone-records'
 export { writeTouchstone, type TouchstoneWriteInput } from './touchstone-write'
 
@@ -61,12 +61,20 @@ function firstNonSpace(text: string, end: number): number {
   return i
 }
 
-/** Reads a Touchstone file. `fileName` gives the port count of a v1 file and names the file in errors. */
-export function parseTouchstone(text: string, fileName: string): TouchstoneData {
+/**
+ * Reads a Touchstone file. `fileName` gives the port count of a v1 file and names the file in
+ * errors. `limits` bounds the ports and frequencies taken (a file past them is a TouchstoneError
+ * on the line that goes past, raised before anything is laid out for it).
+ */
+export function parseTouchstone(text: string, fileName: string, limits: TouchstoneLimits = {}): TouchstoneData {
   if (typeof text !== 'string') throw new TouchstoneError('bad-argument', 'the file text must be a string', String(fileName), null)
   const name = typeof fileName === 'string' && fileName ? fileName : 'file'
   const lines = text.split('\n')
   if (lines[0]!.charCodeAt(0) === 0xFEFF) lines[0] = lines[0]!.slice(1)
+  const bounds = {
+    maxPorts: Math.min(limits.maxPorts ?? TOUCHSTONE_MAX_PORTS, TOUCHSTONE_MAX_PORTS),
+    maxFrequencies: limits.maxFrequencies ?? Number.POSITIVE_INFINITY,
+  }
   const warnings: string[] = []
   const where: LineContext = { fileName: name, lineNumber: 0 }
   let options: OptionLine | undefined
@@ -93,7 +101,7 @@ export function parseTouchstone(text: string, fileName: string): TouchstoneData 
       continue
     }
     if (code === 91) { // '['
-      if (!v2 && !options && !sawData) v2 = new V2Header(name)
+      if (!v2 && !options && !sawData) v2 = new V2Header(name, bounds)
       if (!v2) throw new TouchstoneError('bad-keyword', 'a keyword line needs [Version] 2.0 as the first line of the file (this is a Touchstone 1 file)', name, where.lineNumber, first + 1)
       const next = v2.readKeyword(line.slice(0, end), first, where, reader)
       if (next) reader = next
@@ -113,9 +121,12 @@ export function parseTouchstone(text: string, fileName: string): TouchstoneData 
     else if (!reader) {
       const ports = portsFromFileName(name)
       if (ports === undefined) {
-        throw new TouchstoneError('unknown-port-count', `cannot tell the number of ports of '${name}' (expected a .s1p, .s2p, … file name, or a Touchstone 2.0 file with [Number of Ports])`, name, null)
+        throw new TouchstoneError('unknown-port-count', `cannot tell the number of ports of '${quoteToken(name)}' (expected a .s1p, .s2p, … file name, or a Touchstone 2.0 file with [Number of Ports])`, name, null)
       }
-      reader = new RecordReader(makeLayout(ports, { order21Before12: true, canWrap: ports >= 3 }), options.format, options.unit, name)
+      if (ports > bounds.maxPorts) {
+        throw new TouchstoneError('port-count', `the file name says ${ports} ports: this reader takes 1 to ${bounds.maxPorts}`, name, where.lineNumber)
+      }
+      reader = new RecordReader(makeLayout(ports, { order21Before12: true, canWrap: ports >= 3 }), options.format, options.unit, name, bounds.maxFrequencies)
     }
     reader!.readLine(line, end, first + 1, where)
   }

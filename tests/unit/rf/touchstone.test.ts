@@ -324,3 +324,35 @@ describe('writeTouchstone → parseTouchstone round trip (seeded)', () => {
     expect(() => writeTouchstone({ ...base, ports: 2 })).toThrow(RfInputError)
   })
 })
+
+describe('limits: what a file may make the reader hold', () => {
+  it('refuses a port count past the limit from the file name, on the first data line, before laying anything out', () => {
+    const error = expectError(() => parseTouchstone('! probe\n# GHz S RI R 50\n1 0 0\n', 'x.s12000p'), 'port-count', 3)
+    expect(error.message).toContain('12000 ports')
+    expectError(() => parseTouchstone('# GHz S RI R 50\n1 0 0 0 0 0 0\n0 0 0 0 0 0\n0 0 0 0 0 0\n', 'triple.s3p', { maxPorts: 2 }), 'port-count', 2)
+  })
+
+  it('refuses a huge [Number of Ports] on its own line, with the column of the value', () => {
+    const text = ['[Version] 2.0', '# GHz S RI R 50', '[Number of Ports] 1000000000', '[Number of Frequencies] 1', '[Network Data]', '1 0 0', '[End]'].join('\n')
+    expectError(() => parseTouchstone(text, 'big.ts'), 'port-count', 3, 19)
+    expectError(() => parseTouchstone(text.replace('1000000000', '3'), 'big.ts', { maxPorts: 2 }), 'port-count', 3, 19)
+  })
+
+  it('stops at the first frequency past maxFrequencies, in the data and in [Number of Frequencies]', () => {
+    const rows = Array.from({ length: 5 }, (_, k) => `${k + 1} 0.1 0.2`).join('\n')
+    expect(parseTouchstone(`# GHz S RI R 50\n${rows}\n`, 'a.s1p', { maxFrequencies: 5 }).frequencies).toHaveLength(5)
+    expectError(() => parseTouchstone(`# GHz S RI R 50\n${rows}\n`, 'a.s1p', { maxFrequencies: 4 }), 'too-many-frequencies', 6)
+    const v2 = ['[Version] 2.0', '# GHz S RI R 50', '[Number of Ports] 1', '[Number of Frequencies] 99999999', '[Network Data]', '1 0 0', '[End]'].join('\n')
+    expectError(() => parseTouchstone(v2, 'a.ts', { maxFrequencies: 1000 }), 'too-many-frequencies', 4, 25)
+  })
+
+  it('quotes at most 40 characters of a bad token, keyword or file name', () => {
+    const token = 'x'.repeat(1_000_000)
+    const bad = expectError(() => parseTouchstone(`# MHz S RI R 50\n800 0.1 ${token}\n`, 'a.s1p'), 'non-numeric', 2, 9)
+    expect(bad.message.length).toBeLessThan(300)
+    const keyword = expectError(() => parseTouchstone(`[Version] 2.0\n[${token}]\n`, 'a.ts'), 'unknown-keyword', 2, 1)
+    expect(keyword.message.length).toBeLessThan(300)
+    const name = expectError(() => parseTouchstone('# MHz S RI R 50\n800 0.1 0.2\n', `${token}.txt`), 'unknown-port-count', null)
+    expect(name.message.length).toBeLessThan(400)
+  })
+})

@@ -16,10 +16,8 @@ export default defineEventHandler(async (event) => {
   if (!fileName || fileName.length > 255) {
     throw createError({ statusCode: 400, message: 'The file needs a name of 1–255 characters ending in .s1p or .s2p.' })
   }
-  const parsed = parseUploadedTouchstone({ data: upload.data, fileName })
-  if (parsed.ports > 2) {
-    throw createError({ statusCode: 422, message: `A board takes a one-port (.s1p) load or a two-port (.s2p) block; this file has ${parsed.ports} ports.`, data: { line: null } })
-  }
+  // The reader itself refuses anything but one- and two-ports (MEASURED_LIMITS), naming the line.
+  const { json, summary } = await parseUploadedTouchstone({ data: upload.data, fileName })
   setResponseStatus(event, 201)
   return storeMeasuredUpload({
     workspaceId: access.workspace.id,
@@ -27,6 +25,7 @@ export default defineEventHandler(async (event) => {
     uploadedBy: access.user.id,
     fileName,
     sizeBytes: upload.data.length,
-    parsed,
+    parsedJson: json,
+    summary,
   })
 })
