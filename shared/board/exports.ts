@@ -1,6 +1,7 @@
 // What a board hands to a colleague: the designed ladder as a two-port Touchstone file across the
-// band (port 1 at the source end, port 2 at the load end, both at the board's z0).
-import { ladderSParameters, writeTouchstone, type BlockLookup, type Element } from '../rf'
+// band (port 1 at the source end, port 2 at the load end, both at the board's z0), or as a SPICE
+// subcircuit for a circuit simulator.
+import { formatEng, ladderSParameters, spiceNetlist, writeTouchstone, type BlockLookup, type Element } from '../rf'
 import { withReferenceFrequency } from './band'
 
 export interface DesignedNetworkInput {
@@ -25,6 +26,23 @@ export function designedNetworkS2p(input: DesignedNetworkInput): string {
     format: 'RI',
     unit: 'MHZ',
     comment: `Gammaboard: matching network of "${input.boardName}"\nport 1: source end, port 2: load end; lumped parts at their exact values`,
+  })
+}
+
+/**
+ * The ladder as one SPICE subcircuit (`.subckt <board name> src ld`), its header naming the board,
+ * the design frequency at which the finite-Q ESRs hold, and the port order. Measured blocks are
+ * refused (RfInputError naming the element): they have no SPICE model.
+ */
+export function designedNetworkSpice(input: Pick<DesignedNetworkInput, 'boardName' | 'designFrequencyHz' | 'elements'>): string {
+  return spiceNetlist(input.elements, {
+    name: input.boardName,
+    frequency: input.designFrequencyHz,
+    title: [
+      `Gammaboard: matching network of "${input.boardName}"`,
+      `Design frequency ${formatEng(input.designFrequencyHz, 'Hz', 6)}: finite-Q ESRs hold at this frequency only.`,
+      'Use: X1 <source-side node> <load-side node> <subcircuit name>',
+    ],
   })
 }
 

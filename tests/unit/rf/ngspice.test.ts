@@ -1,17 +1,15 @@
 // Independent check of the RF core against ngspice AC analysis: random ladders (fixed seed) of
 // L, C and R in series and shunt (some with finite Q, the ESR added as a resistor in series with
 // the part, valued at the analysis frequency), lossless lines and stubs as SPICE T elements
-// (TD = deg/(360·fRef)) and ideal transformers (E + F sources), on random loads. The circuits go
+// (TD = deg/(360·fRef)) and ideal transformers (E + F sources), on random loads, each ladder written
+// by the product's own export (spiceNetlist) as one subcircuit. The circuits go
 // into two netlists (R-L-C ladders, and ladders with lines, stubs and transformers), each holding
 // its circuits as independent networks driven by their own 1 A AC current source so that
 // V(in_k) = Zin_k, with one `ac` run per analysis frequency: ngspice start-up is what costs time.
-import { spawnSync } from 'node:child_process'
-import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import path from 'node:path'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { beforeAll, describe, expect, it } from 'vitest'
 import seedrandom from 'seedrandom'
-import { inputImpedance, type Complex, type Element } from '../../../shared/rf/index'
+import { inputImpedance, spiceNetlist, type Complex, type Element } from '../../../shared/rf/index'
+import { acLin, requireNgspice, runAc } from './ngspice-run'
 import { REL_TOL, complexError } from './reference'
 import { randomLadder } from './random-ladders'
 
@@ -65,103 +63,42 @@ function makeCircuits(): Circuit[] {
 
 const num = (v: number) => v.toPrecision(17)
 
-/** SPICE lines for one circuit; the input node is `in<k>`. */
-function netlistOf(c: Circuit): string[] {
+/** The circuit's lines: its ladder as the product exports it, instanced on its load, driven by 1 A into `in<k>`. */
+function deckOf(c: Circuit): string[] {
   const k = c.id
-  const w = 2 * Math.PI * c.frequency
-  const lines: string[] = [`* circuit ${k} at ${c.frequency} Hz`]
-  let node = `n${k}_0`
-  // Load: R, then L or C in series, to ground.
-  lines.push(`RL${k} ${node} n${k}_l ${num(c.load.r)}`)
-  if (c.load.l !== undefined) lines.push(`LL${k} n${k}_l 0 ${num(c.load.l)}`)
-  else lines.push(`CL${k} n${k}_l 0 ${num(c.load.c!)}`)
-  c.elements.forEach((e, i) => {
-    const tag = `${k}_${i}`
-    const next = `n${k}_${i + 1}`
-    if (e.kind === 'block') throw new Error('no measured blocks in the SPICE ladders')
-    const b = e.kind === 'line' || e.kind === 'xfmr' ? '' : e.placement === 'series' ? next : '0'
-    switch (e.kind) {
-      case 'L':
-      case 'C':
-      case 'R': {
-        const esr = e.q === undefined || e.kind === 'R' ? 0 : e.kind === 'L' ? (w * e.value) / e.q : 1 / (w * e.value * e.q)
-        const end = esr > 0 ? `m${tag}` : b
-        lines.push(`${e.kind}${tag} ${node} ${end} ${num(e.value)}`)
-        if (esr > 0) lines.push(`RQ${tag} m${tag} ${b} ${num(esr)}`)
-        break
-      }
-      case 'line':
-        lines.push(`T${tag} ${node} 0 ${next} 0 Z0=${num(e.z0)} TD=${num(e.deg / (360 * e.fRef!))}`)
-        break
-      case 'stub': {
-        // The far port, referred to ground, is left open or shorted.
-        lines.push(`T${tag} ${node} ${b} s${tag} 0 Z0=${num(e.z0)} TD=${num(e.deg / (360 * e.fRef!))}`)
-        if (e.end === 'short') lines.push(`VS${tag} s${tag} 0 0`)
-        break
-      }
-      case 'xfmr':
-        // n:1 with n on the source side: V(next) = n·V(node), I(into node) = n·I(primary).
-        lines.push(`E${tag} ${next} x${tag} ${node} 0 ${num(e.ratio)}`)
-        lines.push(`VX${tag} x${tag} 0 0`)
-        lines.push(`F${tag} 0 ${node} VX${tag} ${num(e.ratio)}`)
-        break
-    }
-    if (e.kind === 'line' || e.kind === 'xfmr' || e.placement === 'series') node = next
-  })
-  lines.push(`I${k} 0 ${node} AC 1`)
-  c.inputNode = node
-  return lines
+  const load = c.load.l !== undefined ? `LL${k} l${k} 0 ${num(c.load.l)}` : `CL${k} l${k} 0 ${num(c.load.c!)}`
+  c.inputNode = `in${k}`
+  return [
+    `* circuit ${k} at ${c.frequency} Hz`,
+    spiceNetlist(c.elements, { name: `c${k}`, frequency: c.frequency }),
+    `X${k} in${k} ld${k} c${k}`,
+    `RL${k} ld${k} l${k} ${num(c.load.r)}`, load,
+    `I${k} 0 in${k} AC 1`,
+  ]
 }
 
 const circuits = makeCircuits()
 const results = new Map<number, Complex>()
-let workDir = ''
-
-function requireNgspice(): void {
-  const found = spawnSync('sh', ['-c', 'command -v ngspice'], { encoding: 'utf8' })
-  if (found.status !== 0 || found.stdout.trim() === '') {
-    throw new Error('ngspice is not on PATH: run `bash scripts/ensure-system-deps.sh` as root (npm test does this first)')
-  }
-}
 
 function runBatch(batch: Batch): void {
   const members = circuits.filter((c) => c.batch === batch)
-  const body = members.flatMap(netlistOf)
-  const control = ['.control', 'set numdgt=16']
-  FREQUENCIES.forEach((f, j) => {
-    const group = members.filter((c) => c.frequency === f)
-    control.push(`ac lin 1 ${num(f)} ${num(f)}`)
-    control.push(`wrdata ${path.join(workDir, `${batch}${j}.txt`)} ${group.map((c) => `v(${c.inputNode})`).join(' ')}`)
-  })
-  control.push('quit', '.endc')
+  const body = members.flatMap(deckOf)
+  const groups = FREQUENCIES.map(f => members.filter((c) => c.frequency === f))
   // rshunt (1e-18 S at every node) gives capacitor-only nodes a DC path; noopac skips the DC
   // operating point of the R-L-C batch, which a linear AC run does not need.
-  const options = batch === 'lumped' ? '.option rshunt=1e18 noopac' : '.option rshunt=1e18'
-  const netlist = [`gammaboard ${batch} ladders`, options, ...body, ...control, '.end', ''].join('\n')
-  const file = path.join(workDir, `${batch}.cir`)
-  writeFileSync(file, netlist)
-  const run = spawnSync('ngspice', ['-b', file], { encoding: 'utf8', timeout: 60_000 })
-  const log = `${run.stdout ?? ''}${run.stderr ?? ''}`
-  FREQUENCIES.forEach((f, j) => {
-    const group = members.filter((c) => c.frequency === f)
-    const out = path.join(workDir, `${batch}${j}.txt`)
-    if (!existsSync(out)) throw new Error(`ngspice (exit ${run.status}) wrote no ${batch} result at ${f} Hz; its log ends:\n${log.slice(-2000)}`)
-    const cols = readFileSync(out, 'utf8').trim().split(/\s+/).map(Number)
-    if (cols.length !== 3 * group.length) throw new Error(`ngspice ${batch} output at ${f} Hz has ${cols.length} numbers, expected ${3 * group.length}`)
-    group.forEach((c, i) => results.set(c.id, { re: cols[3 * i + 1]!, im: cols[3 * i + 2]! }))
-  })
+  const options = batch === 'lumped' ? ['.option rshunt=1e18 noopac'] : ['.option rshunt=1e18']
+  const runs = runAc(`gammaboard ${batch} ladders`, options, body, FREQUENCIES.map((f, j) => ({
+    analysis: acLin(1, f),
+    vectors: groups[j]!.map((c) => `v(${c.inputNode})`),
+  })))
+  runs.forEach((rows, j) => groups[j]!.forEach((c, i) => results.set(c.id, rows[0]!.values[i]!)))
 }
 
 beforeAll(() => {
   requireNgspice()
-  workDir = mkdtempSync(path.join(tmpdir(), 'gammaboard-ngspice-'))
   runBatch('lumped')
   runBatch('distributed')
 }, 60_000)
-
-afterAll(() => {
-  if (workDir && !process.env.KEEP_NGSPICE) rmSync(workDir, { recursive: true, force: true })
-})
 
 describe(`trace against ${SOURCE} (${circuits.length} random ladders, two netlists)`, () => {
   it('covers at least 200 ladders, with finite-Q parts, lines, stubs and transformers among them', () => {

@@ -1,7 +1,7 @@
 // Finite-Q ladders shared by the losses and stress tests: each as RF-core element JSON and as the
-// same circuit for ngspice (ESR = |X|/Q at the analysis frequency as a plain resistor).
+// same circuit for ngspice (the product's netlist export: ESR = |X|/Q at the analysis frequency).
 import { rlcImpedance, type Complex, type Element } from '../../../shared/rf/index'
-import type { SpiceCircuit, SpicePart, SpiceRlc } from './spice-ladder'
+import type { SpiceCircuit, SpiceRlc } from './spice-ladder'
 
 export type LadderCase = {
   name: string
@@ -54,30 +54,20 @@ export const LADDER_CASES: LadderCase[] = [
   },
 ]
 
-/** ESR = |X|/Q at `f` for a lumped L or C with a Q (the constant-Q model). */
-function esrOf(e: Element, f: number): number | undefined {
-  if ((e.kind !== 'L' && e.kind !== 'C') || e.q === undefined) return undefined
+/**
+ * ESR = |X|/Q at `f` for a lumped L or C with a Q (the constant-Q model), R: its resistance,
+ * written here apart from the RF core so that the netlist's ESR resistors are checked, not trusted.
+ */
+export function esrOf(e: Element, f: number): number {
+  if (e.kind === 'R') return e.value
+  if ((e.kind !== 'L' && e.kind !== 'C') || e.q === undefined) return 0
   const x = e.kind === 'L' ? TWO_PI * f * e.value : 1 / (TWO_PI * f * e.value)
   return x / e.q
 }
 
-function spicePart(e: Element, f: number): SpicePart {
-  switch (e.kind) {
-    case 'L': case 'C': case 'R':
-      return { kind: e.kind, placement: e.placement, value: e.value, esr: esrOf(e, f) }
-    case 'line':
-      return { kind: 'line', z0: e.z0, deg: e.deg }
-    case 'stub':
-      if (e.placement !== 'shunt') throw new Error('the SPICE builder takes shunt stubs only')
-      return { kind: 'stub', end: e.end, placement: 'shunt', z0: e.z0, deg: e.deg }
-    default:
-      throw new Error(`no SPICE model for ${e.kind}`)
-  }
-}
-
 /** The case as a SPICE circuit at `f` (default: the case's frequency), driven by `sourceVolts` RMS. */
 export function circuitOf(c: LadderCase, sourceVolts: number, f = c.frequencyHz): SpiceCircuit {
-  return { frequencyHz: f, sourceVolts, source: c.source, load: c.load, parts: c.elements.map(e => spicePart(e, f)) }
+  return { frequencyHz: f, sourceVolts, source: c.source, load: c.load, elements: c.elements }
 }
 
 /** The R-L/R-C model's impedance at f, through the RF core's terminal model. */

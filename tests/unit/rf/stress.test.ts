@@ -3,7 +3,7 @@ import {
   RfInputError, dbmFromWatts, elementStress, wattsFromDbm, type Complex, type RatedElement,
 } from '../../../shared/rf/index'
 import { abs, runSpice } from './spice-ladder'
-import { LADDER_CASES, circuitOf, impedanceOfModel } from './real-parts-cases'
+import { LADDER_CASES, circuitOf, esrOf, impedanceOfModel } from './real-parts-cases'
 import { expectRealClose } from './reference'
 
 const sub = (a: Complex, b: Complex): Complex => ({ re: a.re - b.re, im: a.im - b.im })
@@ -27,8 +27,8 @@ function spiceStress(c: (typeof LADDER_CASES)[number], sourceVolts: number) {
         : { v: abs(here), i: Math.max(abs(current), abs(far)), esr: 0 }
     }
     if (e.kind !== 'L' && e.kind !== 'C' && e.kind !== 'R') throw new Error('unexpected kind')
-    const part = circuitOf(c, sourceVolts).parts[i] as { esr?: number }
-    const esr = e.kind === 'R' ? e.value : part.esr ?? 0
+    const esr = esrOf(e, c.frequencyHz)
+    expectRealClose(r.esr[i]!, esr, `netlist ESR of element ${i}`, 1e-12)
     if (e.placement === 'series') {
       const up = r.node[++node]!
       return { v: abs(sub(up, here)), i: abs(current), esr }
