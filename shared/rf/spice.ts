@@ -5,7 +5,10 @@
  *
  * Element models, the same as trace and sweep use (points.ts):
  * - L and C are ideal parts; a finite Q adds a series resistor holding the ESR = |X|/Q at
- *   `frequency` (the constant-Q model), so results with lossy parts hold at that one frequency.
+ *   `frequency` (the constant-Q model; with a model's Q table, Q at `frequency`), so results with
+ *   lossy parts hold at that one frequency. A part model's parasitics are parts too: an inductor's
+ *   Cp = 1/((2π·srf)²·L) across it and its ESR, a capacitor's ESL in series, pads to ground at
+ *   each end of a series part and at the live end of a shunt part (models.ts).
  * - R is a resistor; lines and stubs are lossless T elements, TD = deg/(360·fRef) with fRef
  *   defaulting to `frequency`; a short stub's far port is tied to ground.
  * - The transformer is ideal, n:1 with n on the source side, ground-referenced on both sides: a
@@ -13,11 +16,13 @@
  *   returning n·I(out) into the load side (the usual E + F pair).
  * Special values follow the RF core: a part or line that is a short (L or R of 0, a 0° line or short
  * stub) becomes a 0 V source (a wire); one that is an open (C of 0, a 0° open stub) is left out.
- * Measured blocks have no SPICE model and are refused.
+ * Measured blocks and fixture-measured parts have no SPICE model and are refused.
  */
 import type { Element } from './types'
 import { RfInputError, requirePositive } from './errors'
 import { electricalDegrees, elementImpedance, validateElements } from './elements'
+import { partQAt } from './models'
+import { isMeasuredPart } from './fixture'
 
 /** Options for `spiceNetlist`. */
 export type SpiceNetlistOptions = {
@@ -73,6 +78,7 @@ export function spiceLadder(elements: readonly Element[], options: SpiceNetlistO
   const name = subcircuitName(options.name)
   const probes = options.probes === true
   list.forEach((e, k) => {
+    if (isMeasuredPart(e)) throw new RfInputError(`elements[${k}].measured`, 'a part given by its fixture measurement has no SPICE model: give it a value and model first')
     if (e.kind === 'block') throw new RfInputError(`elements[${k}]`, 'a measured block has no SPICE model: replace it by parts first')
   })
   const steps = list.filter(advances).length
@@ -107,13 +113,34 @@ export function spiceLadder(elements: readonly Element[], options: SpiceNetlistO
         const isOpen = e.kind === 'C' && e.value === 0
         if (isOpen) { lines.push(`* ${e.kind}${id}: 0 F is an open, left out`); break }
         if (e.value === 0) { wire(entry(top), bottom, `${e.kind}${id} of 0 is a short`); break }
-        const loss = e.kind === 'R' ? e.value : e.q === undefined ? 0 : elementImpedance({ ...e, placement: 'series' }, f).re
+        const q = e.kind === 'R' ? undefined : partQAt(e, f)
+        // ESR = ωL/Q(f) or 1/(ωC·Q(f)): the ideal part's loss with Q(f) (parasitics apart).
+        const loss = e.kind === 'R' ? e.value : q === undefined ? 0 : elementImpedance({ kind: e.kind, placement: 'series', value: e.value, q }, f).re
         esr[k] = loss
         const start = entry(top)
-        if (e.kind !== 'R' && loss > 0) {
-          lines.push(`* ${e.kind}${id}: Q ${num(e.q!)}, ESR at ${num(f)} Hz`, `${e.kind}${id} ${start} q${id} ${num(e.value)}`, `RQ${id} q${id} ${bottom} ${num(loss)}`)
+        const m = e.kind === 'R' ? undefined : e.model
+        if (e.kind === 'R') lines.push(`R${id} ${start} ${bottom} ${num(e.value)}`)
+        else {
+          // The chain of the part: L or C, then ESL (a capacitor's), then the ESR, to `bottom`.
+          const chain: [string, number][] = [[`${e.kind}${id}`, e.value]]
+          if (e.kind === 'C' && m?.esl) chain.push([`LS${id}`, m.esl])
+          if (loss > 0) chain.push([`RQ${id}`, loss])
+          if (q !== undefined) lines.push(`* ${e.kind}${id}: Q ${num(q)} at ${num(f)} Hz, ESR ${num(loss)} ohm`)
+          let from = start
+          chain.forEach(([part, value], j) => {
+            const end = j === chain.length - 1 ? bottom : `q${id}_${j + 1}`
+            lines.push(`${part} ${from} ${end} ${num(value)}`)
+            from = end
+          })
+          if (e.kind === 'L' && m?.srf) {
+            lines.push(`* L${id}: self-resonance ${num(m.srf)} Hz, Cp across the inductor and its ESR`, `CP${id} ${start} ${bottom} ${num(1 / ((2 * Math.PI * m.srf) ** 2 * e.value))}`)
+          }
         }
-        else lines.push(`${e.kind}${id} ${start} ${bottom} ${num(e.value)}`)
+        if (m?.padC) {
+          lines.push(`* ${e.kind}${id}: pad capacitance to ground`)
+          const ends = e.placement === 'series' ? [top, bottom] : [top]
+          ends.forEach((n, j) => lines.push(`CPAD${id}_${j + 1} ${n} 0 ${num(m.padC!)}`))
+        }
         break
       }
       case 'line': {

@@ -72,6 +72,17 @@ const CASES: Case[] = [
     ],
   },
   {
+    // Q tables pass through F0, so the ESR there is the table's own Q (checked below).
+    name: 'part models: Q tables, self-resonance, ESL and pads, at 900 MHz',
+    load: { r: 12, l: 1.5e-9 },
+    elements: [
+      { kind: 'C', placement: 'shunt', value: 4.7e-12, model: { q: [[2e8, 900], [9e8, 380], [6e9, 70]], esl: 0.35e-9, padC: 0.12e-12 } },
+      { kind: 'L', placement: 'series', value: 3.9e-9, model: { q: [[1e8, 28], [9e8, 62], [3e9, 41]], srf: 6.2e9, padC: 0.18e-12 } },
+      { kind: 'C', placement: 'series', value: 2.2e-12, q: 250, model: { esl: 0.5e-9 } },
+      { kind: 'L', placement: 'shunt', value: 8.2e-9, q: 45, model: { srf: 4.1e9, padC: 0.1e-12 } },
+    ],
+  },
+  {
     name: 'special values: L and line of 0 (wires), C of 0 and an open stub of 0° (opens), at 900 MHz',
     load: { r: 50, c: 4e-12 },
     elements: [
@@ -117,15 +128,22 @@ describe(`spiceNetlist against ${SOURCE}`, () => {
     expect(worst, `source: ${SOURCE}`).toBeLessThanOrEqual(REL_TOL)
   })
 
-  it('writes each finite-Q ESR as |X|/Q at the given frequency (checked apart from the RF core)', () => {
-    const c = CASES[3]!
+  it.each([3, 4])('writes each finite-Q ESR as |X|/Q at the given frequency (case %i, checked apart from the RF core)', (index) => {
+    const c = CASES[index]!
     const { text } = runs.get(c.name)!
+    let checked = 0
     c.elements.forEach((e, k) => {
-      if ((e.kind !== 'L' && e.kind !== 'C') || e.q === undefined) return
-      const found = text.match(new RegExp(`^RQ${k + 1} q${k + 1} \\S+ (\\S+)$`, 'm'))
+      if (e.kind !== 'L' && e.kind !== 'C') return
+      // A Q table's row at F0 is the Q there.
+      const q = e.model?.q?.find(([hz]) => hz === F0)?.[1] ?? e.q
+      if (q === undefined) return
+      const found = text.match(new RegExp(`^RQ${k + 1} \\S+ \\S+ (\\S+)$`, 'm'))
       expect(found, `ESR resistor of element ${k}`).not.toBeNull()
-      expect(Math.abs(Number(found![1]) - esrOf(e, F0)) / esrOf(e, F0)).toBeLessThan(1e-12)
+      const expected = esrOf({ ...e, q, model: undefined }, F0)
+      expect(Math.abs(Number(found![1]) - expected) / expected).toBeLessThan(1e-12)
+      checked++
     })
+    expect(checked).toBeGreaterThanOrEqual(4)
   })
 
   it('names the subcircuit and its ports, source side first, under a header comment', () => {
@@ -155,6 +173,7 @@ describe('spiceNetlist input rules', () => {
     }
     bad(() => spiceNetlist([{ kind: 'L', placement: 'series', value: 1e-9 }, { kind: 'block', uploadId: 'u1' }], { name: 'a', frequency: 1e9 }), 'elements[1]')
     bad(() => spiceNetlist([{ kind: 'C', placement: 'series', value: -1 } as Element], { name: 'a', frequency: 1e9 }), 'elements[0].value')
+    bad(() => spiceNetlist([{ kind: 'C', placement: 'shunt', value: 1e-12, measured: { uploadId: 'u2', fixture: 'shunt' } }], { name: 'a', frequency: 1e9 }), 'elements[0].measured')
     bad(() => spiceNetlist([], { name: 'a', frequency: 0 }), 'frequency')
     bad(() => spiceNetlist([], { name: ' ', frequency: 1e9 }), 'name')
   })
