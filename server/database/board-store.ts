@@ -2,7 +2,7 @@
 // read from it (boardFromState), never rebuilt the other way once a state exists.
 import { randomUUID } from 'node:crypto'
 import * as Y from 'yjs'
-import type { Sequelize, Transaction } from 'sequelize'
+import { Op, type Sequelize, type Transaction } from 'sequelize'
 import { modelsFor, type BoardInstance, type BoardSummary } from '../models'
 import { DEFAULT_SETTINGS, TYPICAL_PART_Q, type BoardContent, type BoardSnapshot } from '../../shared/board/schema'
 import { applyBoardState, boardFromState, createBoardDoc, encodeBoardState } from '../../shared/board/ydoc'
@@ -59,19 +59,49 @@ export async function createBoardRow(
   }, { transaction })
 }
 
-/** Stores a new full state (and its listing summary); used by restores and by the live rooms. */
-export async function saveBoardState(sequelize: Sequelize, boardId: string, state: Uint8Array): Promise<void> {
-  const { Board } = modelsFor(sequelize)
-  await Board.update(
-    { state: Buffer.from(state), summary: JSON.stringify(summarize(boardFromState(state))), updatedAt: new Date() },
-    { where: { id: boardId } },
-  )
+/**
+ * Stores a new full state (and its listing summary); used by restores and by the live rooms. The
+ * update-log rows up to `coveredLogId` (already merged into `state`) are dropped in the same
+ * transaction, so a crash between the two never loses or half-writes anything.
+ */
+export async function saveBoardState(sequelize: Sequelize, boardId: string, state: Uint8Array, coveredLogId = 0): Promise<void> {
+  const { Board, BoardUpdate } = modelsFor(sequelize)
+  await sequelize.transaction(async (transaction) => {
+    await Board.update(
+      { state: Buffer.from(state), summary: JSON.stringify(summarize(boardFromState(state))), updatedAt: new Date() },
+      { where: { id: boardId }, transaction },
+    )
+    if (coveredLogId > 0) await BoardUpdate.destroy({ where: { boardId, id: { [Op.lte]: coveredLogId } }, transaction })
+  })
+}
+
+/** Appends one batch of accepted live updates to the board's log; answers the row's id. */
+export async function appendBoardUpdate(sequelize: Sequelize, boardId: string, update: Uint8Array): Promise<number> {
+  const { BoardUpdate } = modelsFor(sequelize)
+  const row = await BoardUpdate.create({ boardId, data: Buffer.from(update) })
+  return row.id
+}
+
+export interface StoredBoardState {
+  /** boards.state with every logged update merged in. */
+  state: Uint8Array
+  /** The id of the last logged update merged in (0 when the log was empty). */
+  logId: number
+}
+
+/** The stored state with the update log merged in (what a crash left is all there). */
+export async function loadStoredBoard(sequelize: Sequelize, boardId: string): Promise<StoredBoardState | null> {
+  const { Board, BoardUpdate } = modelsFor(sequelize)
+  const board = await Board.findByPk(boardId, { attributes: ['id', 'state'] })
+  if (!board) return null
+  const log = await BoardUpdate.findAll({ where: { boardId }, attributes: ['id', 'data'], order: [['id', 'ASC']] })
+  const state = stateBytes(board)
+  if (log.length === 0) return { state, logId: 0 }
+  return { state: Y.mergeUpdates([state, ...log.map(row => stateBytes({ state: row.data }))]), logId: log[log.length - 1]!.id }
 }
 
 export async function loadBoardState(sequelize: Sequelize, boardId: string): Promise<Uint8Array | null> {
-  const { Board } = modelsFor(sequelize)
-  const board = await Board.findByPk(boardId, { attributes: ['id', 'state'] })
-  return board ? stateBytes(board) : null
+  return (await loadStoredBoard(sequelize, boardId))?.state ?? null
 }
 
 /**

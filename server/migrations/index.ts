@@ -4,7 +4,8 @@ import { migration as m0001 } from './0001-users-and-workspaces'
 import { migration as m0002 } from './0002-invitations-and-password-resets'
 import { migration as m0003 } from './0003-boards-snapshots-templates'
 import { migration as m0004 } from './0004-uploads-outbox-login-failures'
+import { migration as m0005 } from './0005-board-updates'
 import { migration as m0006 } from './0006-sessions'
 
-export const migrations: Migration[] = [m0001, m0002, m0003, m0004, m0006]
+export const migrations: Migration[] = [m0001, m0002, m0003, m0004, m0005, m0006]
 export type { Migration }

@@ -7,6 +7,7 @@ import { defineMembership } from './membership'
 import { defineInvitation } from './invitation'
 import { definePasswordReset } from './password-reset'
 import { defineBoard } from './board'
+import { defineBoardUpdate } from './board-update'
 import { defineSnapshot } from './snapshot'
 import { defineTemplate } from './template'
 import { defineUpload } from './upload'
@@ -22,6 +23,7 @@ function defineAll(sequelize: Sequelize) {
     Invitation: defineInvitation(sequelize),
     PasswordReset: definePasswordReset(sequelize),
     Board: defineBoard(sequelize),
+    BoardUpdate: defineBoardUpdate(sequelize),
     Snapshot: defineSnapshot(sequelize),
     Template: defineTemplate(sequelize),
     Upload: defineUpload(sequelize),
@@ -58,6 +60,7 @@ export * from './membership'
 export * from './invitation'
 export * from './password-reset'
 export * from './board'
+export * from './board-update'
 export * from './snapshot'
 export * from './template'
 export * from './upload'

@@ -56,6 +56,44 @@ describe('live durability', () => {
     expect(readBoard(after.doc).elements).toEqual([expect.objectContaining({ id, kind: 'C', value: 5.6e-12 })])
   })
 
+  it('under continuous editing (an edit every 50 ms), a SIGKILL loses only edits accepted in its last second', async () => {
+    // The stated bound (DEVELOPERS.md, "Security limits"): at most 1 s of accepted edits.
+    const BOUND_MS = 1000
+    let server = await boot()
+    const cookies = await signInAll(server.url)
+    const boardId = await createBoard(server.url, cookies.designer, 'Continuous kill test')
+    const editor = pool.track(connectLive(server.url, boardId, { cookie: cookies.designer }))
+    const witness = pool.track(connectLive(server.url, boardId, { cookie: cookies.admin }))
+    await Promise.all([whenSynced(editor), whenSynced(witness)])
+    // Accepted = relayed by the server to another peer; the witness notes when it saw each edit.
+    const acceptedAt = new Map<string, number>()
+    witness.doc.getArray('elements').observe(() => {
+      for (const element of readBoard(witness.doc).elements) if (!acceptedAt.has(element.id)) acceptedAt.set(element.id, Date.now())
+    })
+    let n = 0
+    const editing = setInterval(() => addElement(editor.doc, { kind: 'C', placement: 'shunt', value: ++n * 1e-12 }), 50)
+    try {
+      await waitUntil(() => acceptedAt.size >= 60, 30_000, '60 accepted edits')
+      const killedAt = Date.now()
+      await server.stop('SIGKILL')
+      clearInterval(editing)
+      const accepted = [...acceptedAt].filter(([, at]) => at <= killedAt)
+      pool.destroyAll()
+      servers.splice(0)
+
+      server = await boot()
+      const after = pool.track(connectLive(server.url, boardId, { cookie: (await signInAll(server.url)).designer }))
+      await whenSynced(after)
+      const kept = new Set(readBoard(after.doc).elements.map(e => e.id))
+      const lost = accepted.filter(([id]) => !kept.has(id))
+      console.info(`[durability] continuous editing: ${accepted.length} edits accepted before SIGKILL, ${lost.length} lost`)
+      expect(lost.filter(([, at]) => killedAt - at > BOUND_MS), 'edits accepted more than 1 s before the kill').toEqual([])
+    }
+    finally {
+      clearInterval(editing)
+    }
+  })
+
   it('flushes everything on SIGTERM, even an edit made just before it', async () => {
     let server = await boot()
     const cookies = await signInAll(server.url)

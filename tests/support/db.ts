@@ -3,7 +3,7 @@
 import sqlite3 from 'sqlite3'
 
 export const TABLES = [
-  'users', 'workspaces', 'memberships', 'invitations', 'password_resets', 'boards', 'snapshots',
+  'users', 'workspaces', 'memberships', 'invitations', 'password_resets', 'boards', 'board_updates', 'snapshots',
   'templates', 'uploads', 'outbox', 'login_failures', 'sessions',
 ] as const
 

@@ -1,6 +1,6 @@
 // The process's one live hub, storing boards through the boards table. Lazily created so that
 // nothing touches the database before the first connection or server-side edit.
-import { loadBoardState, saveBoardState } from '../../database/board-store'
+import { appendBoardUpdate, loadStoredBoard, saveBoardState } from '../../database/board-store'
 import { useDb } from '../db'
 import { createLiveHub, type LiveHub } from './rooms'
 
@@ -9,8 +9,9 @@ let hub: LiveHub | undefined
 export function useLiveHub(): LiveHub {
   hub ??= createLiveHub({
     store: {
-      loadState: async boardId => loadBoardState(await useDb(), boardId),
-      saveState: async (boardId, update) => saveBoardState(await useDb(), boardId, update),
+      loadState: async boardId => loadStoredBoard(await useDb(), boardId),
+      saveState: async (boardId, update, coveredLogId) => saveBoardState(await useDb(), boardId, update, coveredLogId),
+      appendUpdate: async (boardId, update) => appendBoardUpdate(await useDb(), boardId, update),
     },
   })
   return hub

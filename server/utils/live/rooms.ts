@@ -1,7 +1,8 @@
 // Live rooms: one in-memory Y.Doc per open board, shared by every connection to that board.
 // A room loads its state before it sends anyone a sync message (frames that arrive meanwhile are
-// queued), saves through a debounced scheduler, flushes when the last peer leaves, and a failed
-// load closes every peer and never writes. Sockets and storage come in through small interfaces
+// queued), appends every accepted update to the board's update log within logIntervalMs (what a
+// crash can lose), compacts the log into the full state through a debounced scheduler, flushes
+// both when the last peer leaves, and a failed load closes every peer and never writes. Sockets and storage come in through small interfaces
 // (./types) so tests drive this with a plain `ws` server.
 import * as Y from 'yjs'
 import * as decoding from 'lib0/decoding'
@@ -17,6 +18,7 @@ import {
 import { awarenessFrame, syncStep1Frame, syncUpdateFrame, updateHasContent } from './protocol'
 import { removeStalePresence, stampAwarenessUpdate } from './presence'
 import { createSaveScheduler, type SaveScheduler } from './persistence'
+import { createUpdateLog, type UpdateLog } from './update-log'
 import { DEFAULT_TIMINGS, type BoardStateStore, type LiveIdentity, type LiveSocket, type LiveTimings } from './types'
 
 type RoomStatus = 'loading' | 'ready' | 'failed' | 'closed'
@@ -31,6 +33,7 @@ interface Room {
   holds: number
   ready: Promise<void>
   saver?: SaveScheduler
+  log?: UpdateLog
 }
 
 export interface LiveConnection {
@@ -84,12 +87,13 @@ export function createLiveHub(options: LiveHubOptions) {
     const room = { boardId, doc, awareness, status: 'loading', peers: new Set(), holds: 0 } as Omit<Room, 'ready'> as Room
     rooms.set(boardId, room)
     room.ready = store.loadState(boardId).then(
-      (state) => {
+      (stored) => {
         if (room.status !== 'loading') return
-        if (state === null) {
+        if (stored === null) {
           failRoom(room, CLOSE_BOARD_GONE, 'board not found')
           throw new Error(`board ${boardId} not found`)
         }
+        const { state, logId } = stored instanceof Uint8Array ? { state: stored, logId: 0 } : stored
         try {
           applyBoardState(doc, state)
         }
@@ -99,7 +103,7 @@ export function createLiveHub(options: LiveHubOptions) {
           failRoom(room, CLOSE_LOAD_FAILED, 'board could not be loaded')
           throw error
         }
-        becomeReady(room)
+        becomeReady(room, logId)
       },
       (error) => {
         log.error(`[live] loading board ${boardId} failed`, error)
@@ -112,16 +116,31 @@ export function createLiveHub(options: LiveHubOptions) {
     return room
   }
 
-  function becomeReady(room: Room) {
+  function becomeReady(room: Room, loadedLogId: number) {
     const { doc, awareness, boardId } = room
+    const appendUpdate = store.appendUpdate?.bind(store)
+    if (appendUpdate) {
+      room.log = createUpdateLog({
+        append: update => appendUpdate(boardId, update),
+        intervalMs: timings.logIntervalMs,
+        retryMs: timings.saveDebounceMs,
+        initialId: loadedLogId,
+        onError: error => log.error(`[live] logging updates of board ${boardId} failed; will retry`, error),
+      })
+    }
     room.saver = createSaveScheduler({
-      save: () => store.saveState(boardId, encodeBoardState(doc)),
+      // The log rows stored before this encoding are all in it (lastId is read first).
+      save: () => {
+        const covered = room.log?.lastId ?? 0
+        return store.saveState(boardId, encodeBoardState(doc), covered)
+      },
       debounceMs: timings.saveDebounceMs,
       maxWaitMs: timings.saveMaxWaitMs,
       onError: error => log.error(`[live] saving board ${boardId} failed; will retry`, error),
     })
     // Listeners attach after the load, so loading itself never counts as an edit.
     doc.on('update', (update: Uint8Array, origin: unknown) => {
+      room.log?.push(update)
       room.saver!.markDirty()
       broadcast(room, syncUpdateFrame(update), origin)
     })
@@ -129,6 +148,8 @@ export function createLiveHub(options: LiveHubOptions) {
       broadcast(room, awarenessFrame(awareness, [...added, ...updated, ...removed]), origin)
     })
     room.status = 'ready'
+    // A log left by a crash is compacted into the state soon, in the background.
+    if (loadedLogId > 0) room.saver.markDirty()
     for (const peer of [...room.peers]) {
       welcome(room, peer)
       const queued = peer.queue
@@ -143,6 +164,7 @@ export function createLiveHub(options: LiveHubOptions) {
     if (rooms.get(room.boardId) === room) rooms.delete(room.boardId)
     for (const peer of [...room.peers]) drop(peer, code, reason)
     room.saver?.dispose()
+    room.log?.dispose()
     room.doc.destroy()
   }
 
@@ -210,11 +232,12 @@ export function createLiveHub(options: LiveHubOptions) {
 
   async function unloadWhenEmpty(room: Room) {
     if (room.status !== 'ready' || room.peers.size > 0 || room.holds > 0) return
-    await room.saver!.flush()
+    await flushRoom(room)
     // Someone may have joined while the save ran; then the room stays.
     if (room.peers.size > 0 || room.holds > 0 || room.status !== 'ready') return
     room.status = 'closed'
     room.saver!.dispose()
+    room.log?.dispose()
     if (rooms.get(room.boardId) === room) rooms.delete(room.boardId)
     room.doc.destroy()
   }
@@ -321,9 +344,15 @@ export function createLiveHub(options: LiveHubOptions) {
   const sweeper = setInterval(() => sweep(), timings.sweepIntervalMs)
   sweeper.unref?.()
 
+  /** The log first, then the full state that covers it (so the log rows are dropped at once). */
+  async function flushRoom(room: Room): Promise<void> {
+    await room.log?.flush()
+    await room.saver?.flush()
+  }
+
   /** Writes every room with unsaved changes and waits for the writes. */
   async function flushAll(): Promise<void> {
-    await Promise.all([...rooms.values()].map(room => room.saver?.flush()))
+    await Promise.all([...rooms.values()].map(flushRoom))
   }
 
   /** Refuses new peers, flushes every room, then closes all connections. */
