@@ -22,6 +22,13 @@ export const BENCH_MODULES: BenchModule[] = [
     },
   },
   {
+    name: 'amplifier',
+    run: async () => {
+      const m = await import('./amplifier')
+      m.printAmplifierBench(m.runAmplifierBench())
+    },
+  },
+  {
     name: 'touchstone',
     run: async () => {
       const m = await import('./touchstone')
