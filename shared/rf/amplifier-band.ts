@@ -10,7 +10,11 @@
  */
 import type { Complex, Element } from './types'
 import { RfInputError, requirePositive } from './errors'
-import { abcdToS, cascade, ladderSParameters, sToAbcd, type BlockLookup, type TwoPortData } from './twoport'
+import { abcdToS, cascade, hasMeasuredData, ladderSParameters, sToAbcd, type Abcd, type BlockLookup, type TwoPortData } from './twoport'
+import { applyElementToPoints, asFloat64, createPoints, setPoint } from './points'
+import { validateElements } from './elements'
+import { isUniformGrid } from './angles'
+import { OPEN, SHORT } from './complex'
 import { interpolateMatrices } from './interpolate'
 import type { NoiseParameters } from './touchstone-records'
 import { gammaOf, impedanceOf } from './gamma'
@@ -76,8 +80,50 @@ export type AmplifierPoint = DevicePoint & {
   readonly isTerminationStable: boolean | null
 }
 
+/**
+ * Each side's chain matrix at every frequency, port 1 at the device end. The kernel (points.ts) maps
+ * (V, I) at the terminal to (V, I) at the device, so running it on (1, 0) and (0, 1) without
+ * rescaling gives the columns (A, C) and (B, D). A side with measured parts takes the slower
+ * element-by-element product instead (their matrices come from files).
+ */
+function sideAbcd(elements: readonly Element[], frequenciesHz: ArrayLike<number>, z0: number, blocks: BlockLookup | undefined, path: string): Abcd[] {
+  const checked = validateElements(elements, path, { requireFRef: true })
+  if (checked.some(hasMeasuredData)) {
+    return ladderSParameters({ z0, frequencies: frequenciesHz, elements: checked, blocks }).map(s => sToAbcd(s, z0))
+  }
+  const f = asFloat64(frequenciesHz)
+  const n = f.length
+  const first = createPoints(n), second = createPoints(n)
+  for (let i = 0; i < n; i++) { setPoint(first, i, OPEN); setPoint(second, i, SHORT) }
+  const uniformGrid = isUniformGrid(f)
+  for (const e of checked) {
+    applyElementToPoints(first, e, f, { uniformGrid, rescale: false })
+    applyElementToPoints(second, e, f, { uniformGrid, rescale: false })
+  }
+  const out: Abcd[] = new Array(n)
+  for (let i = 0; i < n; i++) {
+    out[i] = {
+      a: { re: first.aRe[i]!, im: first.aIm[i]! }, c: { re: first.bRe[i]!, im: first.bIm[i]! },
+      b: { re: second.aRe[i]!, im: second.aIm[i]! }, d: { re: second.bRe[i]!, im: second.bIm[i]! },
+    }
+  }
+  return out
+}
+
+/** Γ against z0 of the impedance a side presents with z0 on its terminal: Z = (A·z0 + B)/(C·z0 + D). */
+function presented(m: Abcd, z0: number): Complex {
+  const nr = m.a.re * z0 + m.b.re, ni = m.a.im * z0 + m.b.im
+  const dr = m.c.re * z0 + m.d.re, di = m.c.im * z0 + m.d.im
+  // Γ = (Z − z0)/(Z + z0) = (N − z0·D')/(N + z0·D') with Z = N/D'.
+  const ar = nr - z0 * dr, ai = ni - z0 * di, br = nr + z0 * dr, bi = ni + z0 * di
+  const d = br * br + bi * bi
+  return { re: (ar * br + ai * bi) / d, im: (ai * br - ar * bi) / d }
+}
+
+/** The same reciprocal network seen from its other end: A and D swap. */
+const reversed = (m: Abcd): Abcd => ({ a: m.d, b: m.b, c: m.c, d: m.a })
+
 const db20 = (x: Complex) => -20 * Math.log10(Math.hypot(x.re, x.im))
-const flip = (s: Complex[][]): Complex[][] => [[s[1]![1]!, s[1]![0]!], [s[0]![1]!, s[0]![0]!]]
 const mag = (x: Complex) => Math.hypot(x.re, x.im)
 
 /** Γ against `from` (Ω, real) re-expressed against `to`. */
@@ -95,16 +141,16 @@ export function amplifierSweep(input: AmplifierInput): AmplifierPoint[] {
   const device = input.device
   const dz0 = device?.z0
   const points = deviceBand(device, input.frequencies)
-  const sIn = ladderSParameters({ z0, frequencies: input.frequencies, elements: input.inputElements, blocks: input.blocks })
-  const sOut = ladderSParameters({ z0, frequencies: input.frequencies, elements: input.outputElements, blocks: input.blocks })
+  const mIn = sideAbcd(input.inputElements, input.frequencies, z0, input.blocks, 'inputElements')
+  const mOut = sideAbcd(input.outputElements, input.frequencies, z0, input.blocks, 'outputElements')
   return points.map((point, k) => {
-    const gammaS = rereference(sIn[k]![0]![0]!, z0, dz0)
-    const gammaL = rereference(sOut[k]![0]![0]!, z0, dz0)
+    const gammaS = rereference(presented(mIn[k]!, z0), z0, dz0)
+    const gammaL = rereference(presented(mOut[k]!, z0), z0, dz0)
     const base = { ...point, gammaS, gammaL }
     if (!point.s) {
       return { ...base, cascade: null, transducerGainDb: null, inputReturnLossDb: null, outputReturnLossDb: null, noiseFigureDb: null, isTerminationStable: null }
     }
-    const whole = abcdToS(cascade(cascade(sToAbcd(flip(sIn[k]!), z0), sToAbcd(point.s, dz0)), sToAbcd(sOut[k]!, z0)), z0)
+    const whole = abcdToS(cascade(cascade(reversed(mIn[k]!), sToAbcd(point.s, dz0)), mOut[k]!), z0)
     const stable = mag(gammaOut(point.s, gammaS)) < 1 && mag(gammaIn(point.s, gammaL)) < 1
     return {
       ...base,
