@@ -9,6 +9,8 @@ export NUXT_SESSION_PASSWORD="${NUXT_SESSION_PASSWORD:-demo-only-session-passwor
 export GAMMABOARD_SEED=demo
 export PORT="${PORT:-3000}"
 export HOST="${HOST:-127.0.0.1}"
+# Links in mails point here (never at a request's Host header); the server refuses mail without it.
+export GAMMABOARD_PUBLIC_URL="${GAMMABOARD_PUBLIC_URL:-http://localhost:${PORT}}"
 echo "Gammaboard demo: http://localhost:${PORT}"
 echo "Demo sign-ins (workspace kestrel, Kestrel Field Sensors; seeded on a database without users):"
 echo "  admin     Mara Quell      mara@kestrel.example   kestrel-admin-demo"

@@ -1,9 +1,12 @@
 import { DataTypes, type Model, type Optional, type Sequelize } from 'sequelize'
 
-/** One failed sign-in, counted against the account (`scope: 'account'`) and the client address. */
+/**
+ * One counted attempt against the account (`scope: 'account'`) or the client address; other limits
+ * prefix the scope ('forgot-account', 'forgot-address').
+ */
 export interface LoginFailureRow {
   id: number
-  scope: 'account' | 'address'
+  scope: string
   key: string
   createdAt: Date
 }

@@ -1,5 +1,4 @@
 // Workspace invitations: a one-time link mailed to the invitee, valid for 7 days.
-import type { H3Event } from 'h3'
 import { Op, type Transaction } from 'sequelize'
 import { roleAtLeast, type InvitationInstance, type Role, type UserInstance } from '../models'
 import { setMembership } from '../database/accounts'
@@ -8,7 +7,8 @@ import type { MemberAccess } from './access'
 
 export const INVITATION_LIFETIME_MS = 7 * 24 * 60 * 60 * 1000
 
-export async function inviteToWorkspace(event: H3Event, access: MemberAccess, email: string, role: Role): Promise<InvitationInstance> {
+export async function inviteToWorkspace(access: MemberAccess, email: string, role: Role): Promise<InvitationInstance> {
+  const origin = publicOrigin()
   const { Invitation, User, Membership } = await useModels()
   const existing = await User.findOne({ where: { email }, attributes: ['id'] })
   if (existing && await Membership.count({ where: { userId: existing.id, workspaceId: access.workspace.id } })) {
@@ -19,7 +19,7 @@ export async function inviteToWorkspace(event: H3Event, access: MemberAccess, em
     workspaceId: access.workspace.id, email, role, tokenHash, invitedBy: access.user.id,
     expiresAt: new Date(Date.now() + INVITATION_LIFETIME_MS),
   })
-  const link = `${publicOrigin(event)}/invite/${token}`
+  const link = `${origin}/invite/${token}`
   await sendMail({
     to: email, kind: 'invitation', workspaceId: access.workspace.id,
     ...invitationMail({ inviterName: access.user.name, workspaceName: access.workspace.name, role, link }),

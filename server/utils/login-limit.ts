@@ -32,11 +32,16 @@ export interface LoginLimiter {
   clearAccount(email: string): Promise<void>
 }
 
-/** The single-node limiter: rows in login_failures, reserved inside one (serialised, immediate) transaction. */
-export function createSqlLoginLimiter(limit = LOGIN_FAILURE_LIMIT, windowMs = LOGIN_WINDOW_MS): LoginLimiter {
+/**
+ * The single-node limiter: rows in login_failures, reserved inside one (serialised, immediate)
+ * transaction. `kind` prefixes the rows' scopes so other limits (forgotten password) share the table.
+ */
+export function createSqlLoginLimiter(limit = { account: LOGIN_FAILURE_LIMIT, address: LOGIN_FAILURE_LIMIT }, windowMs = LOGIN_WINDOW_MS, kind = ''): LoginLimiter {
+  const accountScope = `${kind}account`
+  const addressScope = `${kind}address`
   const clearAccount = async (email: string) => {
     const { LoginFailure } = await useModels()
-    await LoginFailure.destroy({ where: { scope: 'account', key: email } })
+    await LoginFailure.destroy({ where: { scope: accountScope, key: email } })
   }
   return {
     async reserve(email, address) {
@@ -44,13 +49,13 @@ export function createSqlLoginLimiter(limit = LOGIN_FAILURE_LIMIT, windowMs = LO
       const { LoginFailure } = await useModels()
       const ids = await sequelize.transaction(async (transaction) => {
         const since = new Date(Date.now() - windowMs)
-        await LoginFailure.destroy({ where: { createdAt: { [Op.lt]: since } }, transaction })
+        await LoginFailure.destroy({ where: { scope: [accountScope, addressScope], createdAt: { [Op.lt]: since } }, transaction })
         const recent = { [Op.gte]: since }
-        const forAccount = await LoginFailure.count({ where: { scope: 'account', key: email, createdAt: recent }, transaction })
-        const forAddress = await LoginFailure.count({ where: { scope: 'address', key: address, createdAt: recent }, transaction })
-        if (forAccount >= limit || forAddress >= limit) return null
-        const account = await LoginFailure.create({ scope: 'account', key: email }, { transaction })
-        const client = await LoginFailure.create({ scope: 'address', key: address }, { transaction })
+        const forAccount = await LoginFailure.count({ where: { scope: accountScope, key: email, createdAt: recent }, transaction })
+        const forAddress = await LoginFailure.count({ where: { scope: addressScope, key: address, createdAt: recent }, transaction })
+        if (forAccount >= limit.account || forAddress >= limit.address) return null
+        const account = await LoginFailure.create({ scope: accountScope, key: email }, { transaction })
+        const client = await LoginFailure.create({ scope: addressScope, key: address }, { transaction })
         return [account.id, client.id]
       })
       if (!ids) return null
@@ -65,9 +70,21 @@ export function createSqlLoginLimiter(limit = LOGIN_FAILURE_LIMIT, windowMs = LO
   }
 }
 
+/**
+ * Forgotten-password requests: each mails a link, so the account's limit is low (a victim's inbox
+ * must not be flooded) and the address's a little higher (a shared office address).
+ */
+export const FORGOT_LIMIT = { account: 3, address: 20 }
+
 let limiter: LoginLimiter | undefined
+let forgotLimiter: LoginLimiter | undefined
 
 export function useLoginLimiter(): LoginLimiter {
   limiter ??= createSqlLoginLimiter()
   return limiter
+}
+
+export function useForgotLimiter(): LoginLimiter {
+  forgotLimiter ??= createSqlLoginLimiter(FORGOT_LIMIT, LOGIN_WINDOW_MS, 'forgot-')
+  return forgotLimiter
 }

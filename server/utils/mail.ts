@@ -1,6 +1,5 @@
 // Outgoing mail through nodemailer. With SMTP_URL set it goes to that server; without it, to the
 // local catcher (server/mail/catcher.ts) that keeps each message in the outbox table.
-import type { H3Event } from 'h3'
 import nodemailer, { type Transporter } from 'nodemailer'
 import { startMailCatcher, HEADER_KIND, HEADER_WORKSPACE, type MailCatcher } from '../mail/catcher'
 
@@ -52,13 +51,30 @@ export async function sendMail(mail: OutgoingMail): Promise<void> {
   })
 }
 
+export const PUBLIC_URL_MISSING = 'Mail with links is off: set GAMMABOARD_PUBLIC_URL to the address people open '
+  + 'Gammaboard at (for example https://boards.example.com). Links in mail are never built from request headers.'
+
 /**
- * The address links in mails point at. GAMMABOARD_PUBLIC_URL when set (production should set it:
- * a forged Host header must not put an attacker's host into a reset link), else this request's own
- * origin, never X-Forwarded-Host.
+ * The origin links in mails point at: GAMMABOARD_PUBLIC_URL, required. WARNING: never the request's
+ * Host or X-Forwarded-Host — a forged header would put an attacker's host, with a live reset or
+ * invitation token, into a mail to the victim. Null when unset or not an http(s) URL.
  */
-export function publicOrigin(event: H3Event): string {
-  const configured = process.env.GAMMABOARD_PUBLIC_URL
-  if (configured) return configured.replace(/\/+$/, '')
-  return getRequestURL(event, { xForwardedHost: false, xForwardedProto: false }).origin
+export function configuredPublicOrigin(env: NodeJS.ProcessEnv = process.env): string | null {
+  const configured = env.GAMMABOARD_PUBLIC_URL?.trim()
+  if (!configured) return null
+  try {
+    const url = new URL(configured)
+    if (url.protocol !== 'http:' && url.protocol !== 'https:') return null
+    return `${url.origin}${url.pathname.replace(/\/+$/, '')}`
+  }
+  catch {
+    return null
+  }
+}
+
+/** The public origin for a mailed link, or a 503 saying what to configure. Call it before any work the mail is for. */
+export function publicOrigin(): string {
+  const origin = configuredPublicOrigin()
+  if (!origin) throw createError({ statusCode: 503, message: PUBLIC_URL_MISSING })
+  return origin
 }

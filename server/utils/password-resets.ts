@@ -1,16 +1,16 @@
 // Forgotten passwords: a one-time link, valid for an hour, mailed to the account's address.
-import type { H3Event } from 'h3'
 import { Op } from 'sequelize'
 import type { UserInstance } from '../models'
 import { hashToken, newToken } from '../database/tokens'
 
 export const RESET_LIFETIME_MS = 60 * 60 * 1000
 
-export async function sendPasswordReset(event: H3Event, user: UserInstance): Promise<void> {
+export async function sendPasswordReset(user: UserInstance): Promise<void> {
+  const origin = publicOrigin()
   const { PasswordReset } = await useModels()
   const { token, tokenHash } = newToken()
   await PasswordReset.create({ userId: user.id, tokenHash, expiresAt: new Date(Date.now() + RESET_LIFETIME_MS) })
-  const link = `${publicOrigin(event)}/reset/${token}`
+  const link = `${origin}/reset/${token}`
   await sendMail({ to: user.email, kind: 'password-reset', ...passwordResetMail({ name: user.name, link }) })
 }
 

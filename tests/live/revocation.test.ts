@@ -8,7 +8,7 @@ import { addElement } from '../../shared/board/ops'
 import { CLOSE_ACCESS_REVOKED, CLOSE_BOARD_GONE } from '../../shared/live/protocol'
 import { apiClient } from '../support/api'
 import { signIn } from '../support/auth'
-import { linkIn, mailsTo, queryDb, writeDb } from '../support/db'
+import { linkIn, waitForMails, queryDb, writeDb } from '../support/db'
 import { connectLive, tryUpgrade, waitUntil, whenSynced } from '../support/live-client'
 import { clientPool } from './helpers'
 
@@ -73,7 +73,7 @@ describe('revoked sessions lose their live sockets at once', () => {
     const owner = await accountWithBoard('Reset')
     const client = await openSocket(owner.boardId, owner.cookie)
     expect((await api('POST', '/api/auth/forgot', { body: { email: owner.email } })).status).toBe(200)
-    const token = linkIn((await mailsTo(dbFile, owner.email))[0]!.text_body, '/reset/').split('/reset/')[1]!
+    const token = linkIn((await waitForMails(dbFile, owner.email))[0]!.text_body, '/reset/').split('/reset/')[1]!
     expect((await api('POST', '/api/auth/reset', { body: { token, password: 'another good password' } })).status).toBe(200)
     await waitUntil(() => client.closeCodes.includes(CLOSE_ACCESS_REVOKED), 3000, 'the socket to close')
     expect([401, 403]).toContain(await tryUpgrade(baseUrl, owner.boardId, { cookie: owner.cookie }))

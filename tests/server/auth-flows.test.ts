@@ -6,7 +6,7 @@ import { promisify } from 'node:util'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { startServer, type RunningServer } from '../support/server'
 import { apiClient, postFrom as sharedPostFrom } from '../support/api'
-import { linkIn, mailsTo, queryDb, writeDb } from '../support/db'
+import { linkIn, mailsTo, waitForMails, queryDb, writeDb } from '../support/db'
 
 let server: RunningServer
 let base = ''
@@ -96,7 +96,7 @@ describe('forgotten password', () => {
     expect(answer.status).toBe(200)
     expect(ghost.json).toEqual(answer.json)
 
-    const [mail] = await mailsTo(server.dbFile, user.email)
+    const [mail] = await waitForMails(server.dbFile, user.email)
     expect(mail!.kind).toBe('password-reset')
     expect(mail!.workspace_id).toBeNull()
     expect(mail!.text_body).toMatch(/expires in 1 hour/)
@@ -118,7 +118,7 @@ describe('forgotten password', () => {
   it('refuses a link past its hour', async () => {
     const user = await signUp('Late')
     await api('POST', '/api/auth/forgot', { body: { email: user.email } })
-    const token = linkIn((await mailsTo(server.dbFile, user.email))[0]!.text_body, '/reset/').split('/reset/')[1]!
+    const token = linkIn((await waitForMails(server.dbFile, user.email))[0]!.text_body, '/reset/').split('/reset/')[1]!
     const [reset] = await queryDb<{ id: number, expires_at: string, created_at: string }>(server.dbFile,
       'SELECT r.id, r.expires_at, r.created_at FROM password_resets r JOIN users u ON u.id = r.user_id WHERE u.email = ?', [user.email])
     // Issued with one hour to live.

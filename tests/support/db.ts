@@ -65,3 +65,14 @@ export function linkIn(text: string, pathPrefix: string): string {
   if (!match) throw new Error(`no ${pathPrefix} link in mail:\n${text}`)
   return match[0]
 }
+
+/** Waits for at least `count` caught mails to an address (some are sent after the answer), newest first. */
+export async function waitForMails(file: string, address: string, count = 1, timeoutMs = 5000) {
+  const deadline = Date.now() + timeoutMs
+  for (;;) {
+    const mails = await mailsTo(file, address)
+    if (mails.length >= count) return mails
+    if (Date.now() > deadline) throw new Error(`expected ${count} mail(s) to ${address} within ${timeoutMs} ms, found ${mails.length}`)
+    await new Promise(r => setTimeout(r, 50))
+  }
+}

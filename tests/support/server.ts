@@ -38,6 +38,7 @@ export async function startServer(options: StartOptions = {}): Promise<RunningSe
   const port = options.port ?? await freePort()
   const dbFile = options.dbFile ?? join(mkdtempSync(join(tmpdir(), 'gammaboard-test-')), 'test.sqlite')
   const entry = resolve(process.env.GAMMABOARD_OUTPUT ?? '.output', 'server/index.mjs')
+  const url = `http://127.0.0.1:${port}`
   const child = spawn(process.execPath, [entry], {
     env: {
       ...process.env,
@@ -47,6 +48,8 @@ export async function startServer(options: StartOptions = {}): Promise<RunningSe
       NUXT_SESSION_PASSWORD: SESSION_PASSWORD,
       GAMMABOARD_DB: dbFile,
       GAMMABOARD_ENV: 'test',
+      // Mailed links point here; an empty value in options.env starts a server without one.
+      GAMMABOARD_PUBLIC_URL: url,
       ...options.env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
@@ -54,7 +57,6 @@ export async function startServer(options: StartOptions = {}): Promise<RunningSe
   let log = ''
   child.stdout!.on('data', (d) => { log += d })
   child.stderr!.on('data', (d) => { log += d })
-  const url = `http://127.0.0.1:${port}`
   const deadline = Date.now() + 30_000
   for (;;) {
     if (child.exitCode !== null) throw new Error(`server exited early (${child.exitCode}):\n${log}`)

@@ -16,7 +16,7 @@ export default defineEventHandler(async (event) => {
   if (!recipient || !await Membership.count({ where: { userId: recipient.id, workspaceId: access.workspace.id } })) {
     throw createError({ statusCode: 422, message: 'email: only members of this workspace can receive a shared snapshot.' })
   }
-  const link = `${publicOrigin(event)}/boards/${access.board!.id}?snapshot=${access.snapshot!.id}`
+  const link = `${publicOrigin()}/boards/${access.board!.id}?snapshot=${access.snapshot!.id}`
   await sendMail({
     to: recipient.email, kind: 'snapshot-shared', workspaceId: access.workspace.id,
     ...snapshotSharedMail({ senderName: access.user.name, boardName: access.board!.name, label: access.snapshot!.label, link, note: body.note }),

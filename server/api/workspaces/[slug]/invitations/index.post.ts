@@ -8,7 +8,7 @@ export default defineEventHandler(async (event) => {
   const { slug } = await paramsAs(event, SlugParams)
   const body = await readBodyAs(event, BodySchema)
   const access = await requireMember(event, { workspace: slug }, 'admin')
-  const invitation = await inviteToWorkspace(event, access, body.email, body.role)
+  const invitation = await inviteToWorkspace(access, body.email, body.role)
   setResponseStatus(event, 201)
   return serializeInvitation(invitation)
 })
