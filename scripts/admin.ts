@@ -1,10 +1,11 @@
-// Operator commands against the database named by GAMMABOARD_DB (default data/gammaboard.sqlite).
+// Operator commands against the server's database: GAMMABOARD_DATABASE_URL (PostgreSQL) when set,
+// else the SQLite file GAMMABOARD_DB (default data/gammaboard.sqlite).
 //   npm run admin -- user:add --email E --password P --name N --workspace SLUG --role admin|designer|reviewer [--workspace-name "Team"]
 // Creates the user (and the workspace if it is new) and gives them the role there. Pending
 // migrations are applied first, exactly as the server does at start.
 import { parseArgs } from 'node:util'
 import { z } from 'zod'
-import { databaseFile, openSequelize } from '../server/database/connection'
+import { openDatabase } from '../server/database/connection'
 import { migrateToLatest } from '../server/database/migrate'
 import { createUser, createWorkspace, setMembership } from '../server/database/accounts'
 import { hashPasswordOffline } from '../server/database/passwords'
@@ -41,7 +42,7 @@ async function userAdd(argv: string[]): Promise<string> {
     throw new Error(`${problems}\n${USAGE}`)
   }
   const input = parsed.data
-  const sequelize = await openSequelize(databaseFile())
+  const sequelize = await openDatabase()
   try {
     await migrateToLatest(sequelize)
     const { User, Workspace } = modelsFor(sequelize)

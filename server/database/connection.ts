@@ -1,21 +1,41 @@
-// Opens the SQLite file through Sequelize. Explicit imports only (no Nitro auto-imports) so that
-// command-line tools (scripts/admin.ts) can share this file with the server.
+// Opens the database through Sequelize: PostgreSQL when GAMMABOARD_DATABASE_URL is set (several
+// nodes share it), else the SQLite file named by GAMMABOARD_DB. Explicit imports only (no Nitro
+// auto-imports) so that command-line tools (scripts/admin.ts) can share this file with the server.
 import { mkdirSync } from 'node:fs'
 import { dirname, resolve } from 'node:path'
+import pg from 'pg'
 import sqlite3 from 'sqlite3'
 import { Sequelize, Transaction } from 'sequelize'
 
 export const DEFAULT_DB_FILE = 'data/gammaboard.sqlite'
 
-/** Resolve the database path from GAMMABOARD_DB (default data/gammaboard.sqlite). */
+export type DatabaseTarget =
+  | { dialect: 'sqlite', file: string }
+  | { dialect: 'postgres', url: string }
+
+/** Resolve the SQLite path from GAMMABOARD_DB (default data/gammaboard.sqlite). */
 export function databaseFile(env: NodeJS.ProcessEnv = process.env): string {
   return resolve(env.GAMMABOARD_DB || DEFAULT_DB_FILE)
 }
 
 export const BUSY_TIMEOUT_MS = 5000
 
+/** Which database this process uses: GAMMABOARD_DATABASE_URL (postgres://…) wins over GAMMABOARD_DB. */
+export function databaseTarget(env: NodeJS.ProcessEnv = process.env): DatabaseTarget {
+  const url = env.GAMMABOARD_DATABASE_URL?.trim()
+  if (!url) return { dialect: 'sqlite', file: databaseFile(env) }
+  if (!/^postgres(ql)?:\/\//.test(url)) throw new Error('GAMMABOARD_DATABASE_URL must be a postgres:// URL')
+  return { dialect: 'postgres', url }
+}
+
+/** Opens the database this environment names (see databaseTarget). */
+export function openDatabase(env: NodeJS.ProcessEnv = process.env): Promise<Sequelize> {
+  const target = databaseTarget(env)
+  return target.dialect === 'postgres' ? openPostgres(target.url) : openSequelize(target.file)
+}
+
 /**
- * Open the database with WAL journaling (readers never block the writer) and a busy timeout
+ * Open the SQLite file with WAL journaling (readers never block the writer) and a busy timeout
  * (a second writer waits instead of failing with SQLITE_BUSY), foreign keys enforced.
  */
 export async function openSequelize(file: string): Promise<Sequelize> {
@@ -72,4 +92,24 @@ function serializeTransactions(sequelize: Sequelize): void {
     tail = run.catch(() => {})
     return run
   }) as Sequelize['transaction']
+}
+
+/**
+ * Open PostgreSQL. The driver is passed in (dialectModule) so the bundler traces it; a first query
+ * proves the server answers before migrations start.
+ */
+export async function openPostgres(url: string): Promise<Sequelize> {
+  const sequelize = new Sequelize(url, {
+    dialect: 'postgres',
+    dialectModule: pg,
+    logging: false,
+    pool: { max: 10, min: 0, idle: 30_000, acquire: 20_000 },
+  })
+  await sequelize.authenticate()
+  return sequelize
+}
+
+/** True for a PostgreSQL handle (row locks and advisory locks exist only there). */
+export function isPostgres(sequelize: Sequelize): boolean {
+  return sequelize.getDialect() === 'postgres'
 }

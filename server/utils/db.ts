@@ -2,7 +2,7 @@
 // without users) seeded once at start (server/plugins/database.ts); handlers `await useDb()` so no
 // query runs before that has finished.
 import type { Sequelize } from 'sequelize'
-import { databaseFile, openSequelize } from '../database/connection'
+import { openDatabase } from '../database/connection'
 import { migrateToLatest } from '../database/migrate'
 import { seedDemo } from '../database/seed'
 import { modelsFor, type Models } from '../models'
@@ -11,7 +11,7 @@ let ready: Promise<Sequelize> | undefined
 
 export function useDb(): Promise<Sequelize> {
   ready ??= (async () => {
-    const sequelize = await openSequelize(databaseFile())
+    const sequelize = await openDatabase()
     await migrateToLatest(sequelize)
     if (process.env.GAMMABOARD_SEED === 'demo' && await seedDemo(sequelize)) {
       console.info('[gammaboard] seeded the demo workspace "kestrel"')

@@ -1,11 +1,10 @@
-// Nothing lost: the built server is killed and restarted on the same SQLite file.
+// Nothing lost: the built server is killed and restarted on the same database (a SQLite file, or
+// a PostgreSQL database in the postgres project).
 import { afterEach, beforeAll, describe, expect, it } from 'vitest'
-import { mkdtempSync } from 'node:fs'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
 import { readBoard } from '../../shared/board/ydoc'
 import { addElement, updateElement } from '../../shared/board/ops'
 import { freePort, startServer, type RunningServer } from '../support/server'
+import { freshDatabase } from '../support/services'
 import { connectLive, waitUntil, whenSynced } from '../support/live-client'
 import { clientPool, createBoard, signInAll } from './helpers'
 
@@ -21,7 +20,7 @@ async function boot(): Promise<RunningServer> {
 }
 
 beforeAll(async () => {
-  dbFile = join(mkdtempSync(join(tmpdir(), 'gammaboard-live-')), 'durable.sqlite')
+  dbFile = await freshDatabase()
   port = await freePort()
 })
 

@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { startServer, type RunningServer } from '../support/server'
 import { apiClient, postFrom as sharedPostFrom } from '../support/api'
 import { linkIn, mailsTo, waitForMails, queryDb, writeDb } from '../support/db'
+import { databaseEnv } from '../support/services'
 
 let server: RunningServer
 let base = ''
@@ -255,7 +256,7 @@ describe('operators', () => {
   it('a user made with `npm run admin -- user:add` signs in through the API', async () => {
     const email = uniqueEmail('operator')
     const { stdout } = await promisify(execFile)('npx', ['tsx', 'scripts/admin.ts', 'user:add', '--email', email, '--password', 'made on the command line',
-      '--name', 'Olu Operator', '--workspace', 'ops-bench', '--role', 'designer'], { env: { ...process.env, GAMMABOARD_DB: server.dbFile } })
+      '--name', 'Olu Operator', '--workspace', 'ops-bench', '--role', 'designer'], { env: { ...process.env, ...databaseEnv(server.dbFile) } })
     expect(stdout).toMatch(/created workspace ops-bench/)
     const login = await api('POST', '/api/auth/login', { body: { email, password: 'made on the command line' } })
     expect(login.status).toBe(200)

@@ -1,15 +1,17 @@
 // Migrations on an empty database and on one left at the previous migration, through the same
-// functions the server and scripts use (no HTTP).
+// functions the server and scripts use (no HTTP): SQLite in the server project, PostgreSQL in the
+// postgres project (the same migrations run on both engines).
 import { mkdtempSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { afterEach, describe, expect, it } from 'vitest'
 import type { Sequelize } from 'sequelize'
-import { openSequelize } from '../../server/database/connection'
+import { isPostgres, openPostgres, openSequelize } from '../../server/database/connection'
 import { migrateToLatest, migrator } from '../../server/database/migrate'
 import { migrations } from '../../server/migrations'
 import { seedDemo } from '../../server/database/seed'
 import { TABLES } from '../support/db'
+import { createDatabase, projectServices } from '../support/services'
 
 let open: Sequelize | undefined
 afterEach(async () => {
@@ -17,14 +19,20 @@ afterEach(async () => {
   open = undefined
 })
 
+const { postgres } = projectServices()
+
 async function freshDb(): Promise<Sequelize> {
-  open = await openSequelize(join(mkdtempSync(join(tmpdir(), 'gammaboard-migrate-')), 'db.sqlite'))
+  open = postgres
+    ? await openPostgres(await createDatabase(postgres, 'migrate'))
+    : await openSequelize(join(mkdtempSync(join(tmpdir(), 'gammaboard-migrate-')), 'db.sqlite'))
   return open
 }
 
 async function tableNames(sequelize: Sequelize): Promise<string[]> {
-  const [rows] = await sequelize.query("SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' ORDER BY name")
-  return (rows as { name: string }[]).map(r => r.name)
+  const [rows] = await sequelize.query(isPostgres(sequelize)
+    ? "SELECT tablename AS name FROM pg_tables WHERE schemaname = 'public' ORDER BY name"
+    : "SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' ORDER BY name")
+  return (rows as { name: string }[]).map(r => r.name).sort()
 }
 
 describe('migrations', () => {
@@ -33,6 +41,7 @@ describe('migrations', () => {
     expect(await migrateToLatest(sequelize)).toEqual(migrations.map(m => m.name))
     expect(await tableNames(sequelize)).toEqual([...TABLES, 'schema_migrations'].sort())
     expect(await migrateToLatest(sequelize)).toEqual([])
+    if (isPostgres(sequelize)) return
     const [journal] = await sequelize.query('PRAGMA journal_mode')
     expect((journal as { journal_mode: string }[])[0]!.journal_mode).toBe('wal')
   })
@@ -69,6 +78,6 @@ describe('migrations', () => {
     expect(await seedDemo(sequelize)).toBe(true)
     expect(await seedDemo(sequelize)).toBe(false)
     const [rows] = await sequelize.query('SELECT COUNT(*) AS n FROM workspaces')
-    expect((rows as { n: number }[])[0]!.n).toBe(1)
+    expect(Number((rows as { n: number | string }[])[0]!.n)).toBe(1)
   })
 })

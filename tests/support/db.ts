@@ -1,6 +1,24 @@
-// Direct access to a test server's SQLite file: row counts read-only, and (for expiry tests) a
-// single write. WAL mode lets these run beside the server; the busy timeout covers its writes.
+// Direct access to a test server's database, a SQLite file or a postgres:// URL: row counts
+// read-only, and (for expiry tests) a single write. SQL uses `?` placeholders on both engines.
+// WAL mode lets SQLite reads run beside the server; the busy timeout covers its writes.
+import pg from 'pg'
 import sqlite3 from 'sqlite3'
+import { isPostgresUrl } from './services'
+
+// COUNT(*) is a bigint in PostgreSQL, which pg hands back as text; test counts fit a number.
+pg.types.setTypeParser(20, value => Number.parseInt(value, 10))
+
+async function postgresQuery<T>(url: string, sql: string, params: unknown[]): Promise<T[]> {
+  let n = 0
+  const client = new pg.Client({ connectionString: url })
+  await client.connect()
+  try {
+    return (await client.query(sql.replace(/\?/g, () => `$${++n}`), params)).rows as T[]
+  }
+  finally {
+    await client.end()
+  }
+}
 
 export const TABLES = [
   'users', 'workspaces', 'memberships', 'invitations', 'password_resets', 'boards', 'board_updates', 'snapshots',
@@ -22,6 +40,7 @@ function close(db: sqlite3.Database): Promise<void> {
 }
 
 export async function queryDb<T = Record<string, unknown>>(file: string, sql: string, params: unknown[] = []): Promise<T[]> {
+  if (isPostgresUrl(file)) return postgresQuery<T>(file, sql, params)
   const db = await open(file, sqlite3.OPEN_READONLY)
   try {
     db.configure('busyTimeout', 5000)
@@ -33,6 +52,10 @@ export async function queryDb<T = Record<string, unknown>>(file: string, sql: st
 }
 
 export async function writeDb(file: string, sql: string, params: unknown[] = []): Promise<void> {
+  if (isPostgresUrl(file)) {
+    await postgresQuery(file, sql, params)
+    return
+  }
   const db = await open(file, sqlite3.OPEN_READWRITE)
   try {
     db.configure('busyTimeout', 5000)
@@ -53,10 +76,10 @@ export async function rowCounts(file: string): Promise<Record<string, number>> {
   return counts
 }
 
-/** Caught mails to an address, newest first. */
+/** Caught mails to an address (in any letter case, as SQLite LIKE matches), newest first. */
 export async function mailsTo(file: string, address: string) {
   return queryDb<{ id: number, subject: string, text_body: string, html_body: string, kind: string, workspace_id: number | null }>(
-    file, 'SELECT id, subject, text_body, html_body, kind, workspace_id FROM outbox WHERE mail_to LIKE ? ORDER BY id DESC', [`%${address}%`])
+    file, 'SELECT id, subject, text_body, html_body, kind, workspace_id FROM outbox WHERE LOWER(mail_to) LIKE ? ORDER BY id DESC', [`%${address.toLowerCase()}%`])
 }
 
 /** The first link to this site found in a mail's text part. */

@@ -1,42 +1,37 @@
-// Starts the built server (.output) on a free loopback port with its own SQLite file.
-// Used by the global setup and by tests that need a server of their own (restart, kill).
+// Starts the built server (.output) on a free loopback port with its own database: a fresh SQLite
+// file, or in the postgres project a fresh PostgreSQL database and the project's Redis (see
+// freshDatabase). Used by the global setups and by tests that need a server of their own.
 import { spawn, type ChildProcess } from 'node:child_process'
-import { mkdtempSync } from 'node:fs'
-import { createServer } from 'node:net'
-import { tmpdir } from 'node:os'
-import { join, resolve } from 'node:path'
+import { resolve } from 'node:path'
+import { freePort } from './ports'
+import { databaseEnv, freshDatabase, projectServices, redisEnv, type TestServices } from './services'
+
+export { freePort }
 
 export const SESSION_PASSWORD = 'test-session-password-at-least-32-characters-long'
 
 export interface RunningServer {
   url: string
   port: number
+  /** The SQLite file, or the postgres:// URL of the server's database. */
   dbFile: string
   process: ChildProcess
   stop: (signal?: NodeJS.Signals) => Promise<void>
 }
 
-export async function freePort(): Promise<number> {
-  return new Promise((ok, fail) => {
-    const srv = createServer()
-    srv.unref()
-    srv.on('error', fail)
-    srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address() as { port: number }
-      srv.close(() => ok(port))
-    })
-  })
-}
-
 export interface StartOptions {
+  /** A SQLite file or a postgres:// URL; default freshDatabase(). Two nodes share one by passing it. */
   dbFile?: string
   port?: number
   env?: Record<string, string>
+  /** PostgreSQL cluster and Redis to use; default the project's (none in the SQLite project). */
+  services?: TestServices
 }
 
 export async function startServer(options: StartOptions = {}): Promise<RunningServer> {
   const port = options.port ?? await freePort()
-  const dbFile = options.dbFile ?? join(mkdtempSync(join(tmpdir(), 'gammaboard-test-')), 'test.sqlite')
+  const services = options.services ?? projectServices()
+  const dbFile = options.dbFile ?? await freshDatabase(services)
   const entry = resolve(process.env.GAMMABOARD_OUTPUT ?? '.output', 'server/index.mjs')
   const url = `http://127.0.0.1:${port}`
   const child = spawn(process.execPath, [entry], {
@@ -46,7 +41,8 @@ export async function startServer(options: StartOptions = {}): Promise<RunningSe
       HOST: '127.0.0.1',
       NITRO_HOST: '127.0.0.1',
       NUXT_SESSION_PASSWORD: SESSION_PASSWORD,
-      GAMMABOARD_DB: dbFile,
+      ...databaseEnv(dbFile),
+      ...redisEnv(dbFile, services.redis),
       GAMMABOARD_ENV: 'test',
       // Mailed links point here; an empty value in options.env starts a server without one.
       GAMMABOARD_PUBLIC_URL: url,
