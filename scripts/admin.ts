@@ -6,7 +6,7 @@
 import { parseArgs } from 'node:util'
 import { z } from 'zod'
 import { openDatabase } from '../server/database/connection'
-import { migrateToLatest } from '../server/database/migrate'
+import { migrateToLatest, underStartupLock } from '../server/database/migrate'
 import { createUser, createWorkspace, setMembership } from '../server/database/accounts'
 import { hashPasswordOffline } from '../server/database/passwords'
 import { modelsFor } from '../server/models'
@@ -44,7 +44,7 @@ async function userAdd(argv: string[]): Promise<string> {
   const input = parsed.data
   const sequelize = await openDatabase()
   try {
-    await migrateToLatest(sequelize)
+    await underStartupLock(sequelize, () => migrateToLatest(sequelize))
     const { User, Workspace } = modelsFor(sequelize)
     const passwordHash = await hashPasswordOffline(input.password)
     return await sequelize.transaction(async (transaction) => {

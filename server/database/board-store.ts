@@ -60,19 +60,41 @@ export async function createBoardRow(
 }
 
 /**
- * Stores a new full state (and its listing summary); used by restores and by the live rooms. The
- * update-log rows up to `coveredLogId` (already merged into `state`) are dropped in the same
- * transaction, so a crash between the two never loses or half-writes anything.
+ * Stores a full state (and its listing summary); used by restores and by the live rooms. The write
+ * merges with what is stored, inside one transaction holding the row (FOR UPDATE on PostgreSQL;
+ * SQLite has one writer): with several nodes each saves its own copy of a board, and a copy that
+ * missed another node's latest edit must not write it away (Yjs states merge without loss). The
+ * update-log rows up to `coveredLogId` are merged in too and dropped in the same transaction:
+ * they may hold another node's updates that this copy has not seen, and a crash between the two
+ * steps never loses or half-writes anything.
  */
 export async function saveBoardState(sequelize: Sequelize, boardId: string, state: Uint8Array, coveredLogId = 0): Promise<void> {
   const { Board, BoardUpdate } = modelsFor(sequelize)
   await sequelize.transaction(async (transaction) => {
+    const row = await Board.findByPk(boardId, { attributes: ['id', 'state'], transaction, lock: transaction.LOCK.UPDATE })
+    if (!row) return
+    const covered = coveredLogId > 0
+      ? await BoardUpdate.findAll({ where: { boardId, id: { [Op.lte]: coveredLogId } }, attributes: ['id', 'data'], order: [['id', 'ASC']], transaction })
+      : []
+    const merged = mergeStates([stateBytes(row), ...covered.map(update => stateBytes({ state: update.data })), state])
     await Board.update(
-      { state: Buffer.from(state), summary: JSON.stringify(summarize(boardFromState(state))), updatedAt: new Date() },
+      { state: Buffer.from(merged), summary: JSON.stringify(summarize(boardFromState(merged))), updatedAt: new Date() },
       { where: { id: boardId }, transaction },
     )
-    if (coveredLogId > 0) await BoardUpdate.destroy({ where: { boardId, id: { [Op.lte]: coveredLogId } }, transaction })
+    if (covered.length) await BoardUpdate.destroy({ where: { boardId, id: { [Op.lte]: coveredLogId } }, transaction })
   })
+}
+
+/** The union of Yjs states, re-encoded from one document so deleted content is collected. */
+export function mergeStates(states: Uint8Array[]): Uint8Array {
+  const doc = new Y.Doc()
+  try {
+    for (const state of states) applyBoardState(doc, state)
+    return encodeBoardState(doc)
+  }
+  finally {
+    doc.destroy()
+  }
 }
 
 /** Appends one batch of accepted live updates to the board's log; answers the row's id. */

@@ -113,3 +113,14 @@ export async function openPostgres(url: string): Promise<Sequelize> {
 export function isPostgres(sequelize: Sequelize): boolean {
   return sequelize.getDialect() === 'postgres'
 }
+
+/**
+ * Serialises check-then-write transactions that share `key` (an account's address, a workspace's
+ * admins, the sign-in limit). SQLite runs one transaction at a time already; PostgreSQL's read
+ * committed lets two of them read the same rows before either writes, so there an advisory lock,
+ * released at commit or rollback, makes the second wait. Holds across every node on the database.
+ */
+export async function lockWithin(sequelize: Sequelize, transaction: Transaction, key: string): Promise<void> {
+  if (!isPostgres(sequelize)) return
+  await sequelize.query('SELECT pg_advisory_xact_lock(hashtext(:key))', { replacements: { key }, transaction })
+}

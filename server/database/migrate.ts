@@ -3,6 +3,7 @@
 import { Umzug, SequelizeStorage } from 'umzug'
 import type { Sequelize } from 'sequelize'
 import { migrations } from '../migrations'
+import { isPostgres, lockWithin } from './connection'
 
 export function migrator(sequelize: Sequelize) {
   return new Umzug({
@@ -20,4 +21,18 @@ export function migrator(sequelize: Sequelize) {
 export async function migrateToLatest(sequelize: Sequelize): Promise<string[]> {
   const applied = await migrator(sequelize).up()
   return applied.map(m => m.name)
+}
+
+/**
+ * Runs start-up work (migrations, the demo seed) one node at a time: on PostgreSQL two nodes
+ * starting together would both create the same tables. A transaction holds an advisory lock
+ * while the work runs on other pooled connections. SQLite (one node) needs no lock, and must not
+ * get one this way: its transactions run one at a time, so the inner ones would wait forever.
+ */
+export async function underStartupLock<T>(sequelize: Sequelize, work: () => Promise<T>): Promise<T> {
+  if (!isPostgres(sequelize)) return work()
+  return sequelize.transaction(async (transaction) => {
+    await lockWithin(sequelize, transaction, 'start-up')
+    return work()
+  })
 }

@@ -3,7 +3,7 @@
 // query runs before that has finished.
 import type { Sequelize } from 'sequelize'
 import { openDatabase } from '../database/connection'
-import { migrateToLatest } from '../database/migrate'
+import { migrateToLatest, underStartupLock } from '../database/migrate'
 import { seedDemo } from '../database/seed'
 import { modelsFor, type Models } from '../models'
 
@@ -12,10 +12,12 @@ let ready: Promise<Sequelize> | undefined
 export function useDb(): Promise<Sequelize> {
   ready ??= (async () => {
     const sequelize = await openDatabase()
-    await migrateToLatest(sequelize)
-    if (process.env.GAMMABOARD_SEED === 'demo' && await seedDemo(sequelize)) {
-      console.info('[gammaboard] seeded the demo workspace "kestrel"')
-    }
+    await underStartupLock(sequelize, async () => {
+      await migrateToLatest(sequelize)
+      if (process.env.GAMMABOARD_SEED === 'demo' && await seedDemo(sequelize)) {
+        console.info('[gammaboard] seeded the demo workspace "kestrel"')
+      }
+    })
     return sequelize
   })()
   return ready

@@ -3,10 +3,10 @@
 // The attempt is reserved (counted) before the password is checked, in one atomic step with the
 // check: counting only after scrypt let 40 parallel guesses all pass a check made before any of
 // them had been recorded. A successful sign-in gives its reservation back.
-// The limiter sits behind `LoginLimiter` so another store (Redis, for several nodes) can replace
-// the SQLite one without touching the route.
+// The limiter sits behind `LoginLimiter`; its rows live in the database, which several nodes share.
 import type { H3Event } from 'h3'
 import { Op } from 'sequelize'
+import { lockWithin } from '../database/connection'
 
 export const LOGIN_FAILURE_LIMIT = 10
 export const LOGIN_WINDOW_MS = 15 * 60 * 1000
@@ -33,8 +33,9 @@ export interface LoginLimiter {
 }
 
 /**
- * The single-node limiter: rows in login_failures, reserved inside one (serialised, immediate)
- * transaction. `kind` prefixes the rows' scopes so other limits (forgotten password) share the table.
+ * Rows in login_failures, reserved inside one transaction: serialised and immediate on SQLite, under
+ * an advisory lock on PostgreSQL, so several nodes on one database grant no more tries than one.
+ * `kind` prefixes the rows' scopes so other limits (forgotten password) share the table.
  */
 export function createSqlLoginLimiter(limit = { account: LOGIN_FAILURE_LIMIT, address: LOGIN_FAILURE_LIMIT }, windowMs = LOGIN_WINDOW_MS, kind = ''): LoginLimiter {
   const accountScope = `${kind}account`
@@ -48,6 +49,8 @@ export function createSqlLoginLimiter(limit = { account: LOGIN_FAILURE_LIMIT, ad
       const sequelize = await useDb()
       const { LoginFailure } = await useModels()
       const ids = await sequelize.transaction(async (transaction) => {
+        // Count-and-insert as one step on every node of the database (see lockWithin).
+        await lockWithin(sequelize, transaction, `${kind}sign-in limit`)
         const since = new Date(Date.now() - windowMs)
         await LoginFailure.destroy({ where: { scope: [accountScope, addressScope], createdAt: { [Op.lt]: since } }, transaction })
         const recent = { [Op.gte]: since }

@@ -1,6 +1,7 @@
 // Workspace membership queries and rules used by several routes.
 import type { Transaction } from 'sequelize'
 import { serializeMember, serializeWorkspace, type PublicMember, type Role, type UserInstance } from '../models'
+import { lockWithin } from '../database/connection'
 
 export async function workspacesOf(userId: number) {
   const { Membership, Workspace } = await useModels()
@@ -53,6 +54,7 @@ export async function findMember(workspaceId: number, userId: number, transactio
 export async function changeMembership(workspaceId: number, userId: number, role: Role | null) {
   const sequelize = await useDb()
   return sequelize.transaction(async (transaction) => {
+    await lockWithin(sequelize, transaction, `workspace-members:${workspaceId}`)
     const membership = await findMember(workspaceId, userId, transaction)
     await assertKeepsAnAdmin(workspaceId, membership.role, role, transaction)
     if (role === null) await membership.destroy({ transaction })

@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { serializeUser } from '../../models'
 import { createUser, createWorkspace, setMembership } from '../../database/accounts'
+import { lockWithin } from '../../database/connection'
 
 const BodySchema = z.object({
   name: NameSchema,
@@ -25,6 +26,7 @@ export default defineEventHandler(async (event) => {
   const passwordHash = await hashPassword(body.password)
   const { user, workspace, joined } = await sequelize.transaction(async (transaction) => {
     // Checked inside the transaction: parallel sign-ups with one address make one account.
+    await lockWithin(sequelize, transaction, `account:${email}`)
     if (await User.count({ where: { email }, transaction })) {
       throw createError({ statusCode: 422, message: 'email: an account with this e-mail address already exists; sign in or reset the password.' })
     }

@@ -19,6 +19,7 @@ import { awarenessFrame, syncStep1Frame, syncUpdateFrame, updateHasContent } fro
 import { removeStalePresence, stampAwarenessUpdate } from './presence'
 import { createSaveScheduler, type SaveScheduler } from './persistence'
 import { createUpdateLog, type UpdateLog } from './update-log'
+import { linkRoom, ORIGIN_REMOTE, type RelayBus, type RoomLink } from './relay'
 import { DEFAULT_TIMINGS, type BoardStateStore, type LiveIdentity, type LiveSocket, type LiveTimings } from './types'
 
 type RoomStatus = 'loading' | 'ready' | 'failed' | 'closed'
@@ -34,6 +35,8 @@ interface Room {
   ready: Promise<void>
   saver?: SaveScheduler
   log?: UpdateLog
+  /** With several nodes: the board's channel to the others (see ./relay). */
+  link?: RoomLink
 }
 
 export interface LiveConnection {
@@ -52,6 +55,8 @@ export interface LiveHubOptions {
   store: BoardStateStore
   timings?: Partial<LiveTimings>
   log?: Pick<Console, 'error' | 'warn'>
+  /** Joins the rooms to the other nodes' copies (Redis); absent on a single node. */
+  relay?: RelayBus
 }
 
 const canEdit = (role: LiveRole) => role === 'admin' || role === 'designer'
@@ -86,7 +91,15 @@ export function createLiveHub(options: LiveHubOptions) {
     awareness.setLocalState(null)
     const room = { boardId, doc, awareness, status: 'loading', peers: new Set(), holds: 0 } as Omit<Room, 'ready'> as Room
     rooms.set(boardId, room)
-    room.ready = store.loadState(boardId).then(
+    if (options.relay) {
+      room.link = linkRoom({
+        bus: options.relay, boardId, doc, awareness, log,
+        localClientIds: () => [...room.peers].flatMap(peer => [...peer.clientIds]),
+      })
+    }
+    // Subscribed before loading: whatever another node publishes meanwhile is queued, not lost.
+    const subscribed = room.link?.subscribed ?? Promise.resolve()
+    room.ready = subscribed.then(() => store.loadState(boardId)).then(
       (stored) => {
         if (room.status !== 'loading') return
         if (stored === null) {
@@ -139,13 +152,20 @@ export function createLiveHub(options: LiveHubOptions) {
       onError: error => log.error(`[live] saving board ${boardId} failed; will retry`, error),
     })
     // Listeners attach after the load, so loading itself never counts as an edit.
+    // Every node saves what it holds, remote changes included, so a node that dies before its
+    // save loses nothing another node has (saves merge with the stored state: board-store.ts).
     doc.on('update', (update: Uint8Array, origin: unknown) => {
-      room.log?.push(update)
+      // Each node logs the updates it accepted itself; remote ones are logged by their own node
+      // (and a node that dies before that still has them in every other node's next save).
+      if (origin !== ORIGIN_REMOTE) room.log?.push(update)
       room.saver!.markDirty()
       broadcast(room, syncUpdateFrame(update), origin)
+      if (origin !== ORIGIN_REMOTE) room.link?.publishUpdate(update)
     })
     awareness.on('update', ({ added, updated, removed }: { added: number[], updated: number[], removed: number[] }, origin: unknown) => {
-      broadcast(room, awarenessFrame(awareness, [...added, ...updated, ...removed]), origin)
+      const changed = [...added, ...updated, ...removed]
+      broadcast(room, awarenessFrame(awareness, changed), origin)
+      if (origin !== ORIGIN_REMOTE) room.link?.publishAwareness(awarenessProtocol.encodeAwarenessUpdate(awareness, changed))
     })
     room.status = 'ready'
     // A log left by a crash is compacted into the state soon, in the background.
@@ -156,6 +176,7 @@ export function createLiveHub(options: LiveHubOptions) {
       peer.queue = []
       for (const frame of queued) handleFrame(room, peer, frame)
     }
+    room.link?.start()
     if (room.peers.size === 0 && room.holds === 0) void unloadWhenEmpty(room)
   }
 
@@ -165,6 +186,7 @@ export function createLiveHub(options: LiveHubOptions) {
     for (const peer of [...room.peers]) drop(peer, code, reason)
     room.saver?.dispose()
     room.log?.dispose()
+    room.link?.close()
     room.doc.destroy()
   }
 
@@ -223,7 +245,7 @@ export function createLiveHub(options: LiveHubOptions) {
   function handleAwareness(room: Room, conn: LiveConnection, update: Uint8Array) {
     const isOwnedByOther = (clientId: number) => {
       for (const peer of room.peers) if (peer !== conn && peer.clientIds.has(clientId)) return true
-      return false
+      return room.link?.isRemoteClient(clientId) ?? false
     }
     const stamped = stampAwarenessUpdate(update, conn.identity, isOwnedByOther)
     for (const id of stamped.clientIds) conn.clientIds.add(id)
@@ -238,6 +260,7 @@ export function createLiveHub(options: LiveHubOptions) {
     room.status = 'closed'
     room.saver!.dispose()
     room.log?.dispose()
+    room.link?.close()
     if (rooms.get(room.boardId) === room) rooms.delete(room.boardId)
     room.doc.destroy()
   }
@@ -341,6 +364,9 @@ export function createLiveHub(options: LiveHubOptions) {
       if (now - conn.lastFrameAt > timings.idleCloseMs) drop(conn, 1001, 'idle')
     }
   }
+  options.relay?.onResume?.(() => {
+    for (const room of rooms.values()) if (room.status === 'ready') room.link?.resync()
+  })
   const sweeper = setInterval(() => sweep(), timings.sweepIntervalMs)
   sweeper.unref?.()
 
