@@ -29,10 +29,26 @@ export function withNonFiniteAsStrings(value: unknown): unknown {
   return value
 }
 
-/** Runs one RF core call for a route and answers its result, or a 400 naming the bad argument. */
+/** True when a NaN is anywhere in the value (arrays and plain objects walked). */
+export function containsNaN(value: unknown): boolean {
+  if (typeof value === 'number') return Number.isNaN(value)
+  if (Array.isArray(value)) return value.some(containsNaN)
+  if (value !== null && typeof value === 'object') return Object.values(value).some(containsNaN)
+  return false
+}
+
+/**
+ * Runs one RF core call for a route and answers its result, or a 400 naming the bad argument.
+ * A NaN in the result (finite inputs whose arithmetic overflowed, e.g. z0 = 1e308) is a 422:
+ * an answer must never carry an undefined number.
+ */
 export function answerRf(compute: () => unknown): unknown {
   try {
-    return withNonFiniteAsStrings(compute())
+    const result = compute()
+    if (containsNaN(result)) {
+      throw createError({ statusCode: 422, message: 'These inputs are outside the range the computation can represent (a result would be undefined): use smaller magnitudes.' })
+    }
+    return withNonFiniteAsStrings(result)
   }
   catch (error) {
     if (error instanceof RfInputError) {

@@ -114,3 +114,69 @@ describe('forgotten password', () => {
     expect((await postFrom(server.url, '127.0.8.2', '/api/auth/login', { email: user.email, password: 'the chosen new password' }))).toBe(200)
   })
 })
+
+describe('odd inputs answer 4xx, never 500', () => {
+  it('a NUL in the sign-in e-mail is a 400', async () => {
+    const res = await postFrom(server.url, '127.0.9.1', '/api/auth/login', { email: 'mara\u0000@kestrel.example', password: 'whatever it is' })
+    expect(res).toBe(400)
+  })
+
+  it('names and labels refuse NUL, control characters and lone surrogates', async () => {
+    const user = await signUp('Namer')
+    for (const name of ['nul\u0000inside', 'lone \ud800 high', 'lone \udc00 low', 'bell\u0007']) {
+      const signup = await api('POST', '/api/auth/signup', { body: { name, email: uniqueEmail('odd'), password: 'a good long password' } })
+      expect(signup.status, JSON.stringify(name)).toBe(400)
+      expect(signup.json.message).toMatch(/name/)
+      const board = await api('POST', '/api/boards', { cookie: user.cookie, body: { workspace: user.workspace, name } })
+      expect(board.status, JSON.stringify(name)).toBe(400)
+    }
+    const board = await api('POST', '/api/boards', { cookie: user.cookie, body: { workspace: user.workspace, name: 'Proper board \u{1F4E1}' } })
+    expect(board.status).toBe(201)
+    expect((await api('POST', `/api/boards/${board.json.id}/snapshots`, { cookie: user.cookie, body: { label: 'cut\u0000' } })).status).toBe(400)
+    expect((await api('POST', `/api/boards/${board.json.id}/snapshots`, { cookie: user.cookie, body: { label: 'half \udfff' } })).status).toBe(400)
+  })
+
+  it('member ids are plain digits: 0x3, " 3" and 3e0 are refused', async () => {
+    const user = await signUp('Counter')
+    for (const id of ['0x3', '%203', '3e0', '03', '-3']) {
+      const res = await api('PATCH', `/api/workspaces/${user.workspace}/members/${id}`, { cookie: user.cookie, body: { role: 'designer' } })
+      expect(res.status, id).toBe(400)
+      expect(res.json.message).toMatch(/userId/)
+    }
+  })
+
+  it('the 404 for another workspace\'s upload does not name that workspace', async () => {
+    const owner = await signUp('Uploader')
+    const board = await api('POST', '/api/boards', { cookie: owner.cookie, body: { workspace: owner.workspace, name: 'Measured' } })
+    const form = new FormData()
+    form.append('file', new Blob(['# Hz S RI R 50\n1e9 0.2 -0.1\n2e9 0.25 -0.05\n'], { type: 'text/plain' }), 'probe.s1p')
+    const uploaded = await fetch(`${server.url}/api/boards/${board.json.id}/uploads`, { method: 'POST', headers: { cookie: owner.cookie }, body: form })
+    expect(uploaded.status).toBe(201)
+    const { id } = await uploaded.json() as { id: string }
+    const outsider = await signUp('Outsider')
+    const res = await api('GET', `/api/uploads/${id}`, { cookie: outsider.cookie })
+    expect(res.status).toBe(404)
+    expect(res.json.message).not.toContain(owner.workspace)
+    const missing = await api('GET', '/api/uploads/00000000-0000-4000-8000-000000000000', { cookie: outsider.cookie })
+    expect(missing.json.message.replace(/[0-9a-f-]{36}/, 'ID')).toBe(res.json.message.replace(/[0-9a-f-]{36}/, 'ID'))
+  })
+
+  it('solve-stub with z0 = 1e308 answers a 4xx, never NaN', async () => {
+    const res = await fetch(`${server.url}/api/rf/solve-stub`, {
+      method: 'POST', headers: { 'content-type': 'application/json' },
+      body: JSON.stringify({ z0: 1e308, frequency: 1e9, load: { re: 25, im: -10 }, end: 'short' }),
+    })
+    const text = await res.text()
+    expect(res.status).toBeGreaterThanOrEqual(400)
+    expect(res.status).toBeLessThan(500)
+    expect(text).not.toMatch(/NaN/)
+  })
+
+  it('a 100 KB query string answers a JSON 414', async () => {
+    const res = await fetch(`${server.url}/api/health?q=${'x'.repeat(100_000)}`)
+    expect(res.status).toBe(414)
+    expect((await res.json() as { message: string }).message).toMatch(/too long/)
+    // The server is fine afterwards.
+    expect((await fetch(`${server.url}/api/health`)).status).toBe(200)
+  })
+})
