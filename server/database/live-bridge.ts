@@ -18,6 +18,8 @@ export interface LiveBridge {
   closeBoard?(boardId: string): unknown
   /** Who has the board open right now (name and colour from their accounts). */
   presentIn?(boardId: string): { userId: number, name: string, colour: string }[]
+  /** The same for many boards at once, on every node (several nodes: through Redis). */
+  presentInMany?(boardIds: string[]): Promise<Map<string, { userId: number, name: string, colour: string }[]>>
 }
 
 let bridge: LiveBridge | undefined

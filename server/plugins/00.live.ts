@@ -6,6 +6,7 @@ import { setLiveBridge } from '../database/live-bridge'
 import { MAX_FRAME_BYTES } from '../../shared/live/protocol'
 import { existingLiveHub, useLiveHub } from '../utils/live/hub'
 import { createRedisControl, type LiveCommand } from '../utils/live/redis-control'
+import { createPresenceDirectory } from '../utils/live/redis-presence'
 import { closeRedis, useRedis } from '../utils/redis'
 
 /** Runs a socket command on this node's rooms (none open: nothing to do). */
@@ -29,6 +30,7 @@ export default defineNitroPlugin((nitroApp) => {
   // With several nodes, socket commands run here at once and on every other node on arrival.
   const redis = useRedis()
   const control = redis ? createRedisControl(redis, runHere) : undefined
+  const directory = redis ? createPresenceDirectory(redis, existingLiveHub) : undefined
   const everywhere = (command: LiveCommand) => {
     control?.publish(command)
     return runHere(command)
@@ -40,6 +42,11 @@ export default defineNitroPlugin((nitroApp) => {
     editBoard: (boardId, edit) => useLiveHub().editBoard(boardId, edit),
     refreshRole: (userId, workspaceId, role) => everywhere({ kind: 'refreshRole', userId, workspaceId, role }),
     presentIn: boardId => existingLiveHub()?.presentIn(boardId) ?? [],
+    presentInMany: async (boardIds) => {
+      if (directory) return directory.presentInMany(boardIds)
+      const hub = existingLiveHub()
+      return new Map(boardIds.map(id => [id, hub?.presentIn(id) ?? []]))
+    },
     closeSocketsOf: userId => everywhere({ kind: 'closeSocketsOf', userId }),
     closeSession: sessionKey => everywhere({ kind: 'closeSession', sessionKey }),
     closeBoard: boardId => everywhere({ kind: 'closeBoard', boardId }),
@@ -47,6 +54,7 @@ export default defineNitroPlugin((nitroApp) => {
 
   nitroApp.hooks.hook('close', async () => {
     await existingLiveHub()?.shutdown()
+    await directory?.close()
     await closeRedis()
   })
 })

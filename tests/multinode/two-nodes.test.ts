@@ -85,6 +85,20 @@ describe('two nodes on one database and one Redis', () => {
     await waitUntil(() => !onB.provider.awareness.getStates().has(onA.doc.clientID), 5000, 'presence gone on node B')
   })
 
+  it('lists who is in a board on every node\'s board list', async () => {
+    const boardId = await createBoard(nodeA.url, cookies.designer, 'In it now across nodes')
+    const namesOn = async (node: RunningServer) => {
+      const res = await fetch(`${node.url}/api/boards?workspace=kestrel`, { headers: { cookie: cookies.reviewer } })
+      const board = (await res.json() as { id: string, present: { name: string }[] }[]).find(b => b.id === boardId)!
+      return board.present.map(p => p.name).sort()
+    }
+    const onA = pool.track(connectLive(nodeA.url, boardId, { cookie: cookies.designer }))
+    await whenSynced(onA)
+    await expect.poll(() => namesOn(nodeB), { timeout: 10_000 }).toEqual([DEMO_USERS.designer.name])
+    onA.destroy()
+    await expect.poll(() => namesOn(nodeB), { timeout: 15_000 }).toEqual([])
+  })
+
   it('counts failed sign-ins across nodes: ten in all, wherever they land', async () => {
     const email = `target-${Date.now()}@race.example`
     const made = await fetch(`${nodeA.url}/api/auth/signup`, {

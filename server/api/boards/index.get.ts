@@ -15,6 +15,6 @@ export default defineEventHandler(async (event) => {
     attributes: { exclude: ['state'] },
     order: [['updatedAt', 'DESC'], ['id', 'ASC']],
   })
-  const bridge = liveBridge()
-  return boards.map(board => ({ ...serializeBoardListEntry(board), present: bridge?.presentIn?.(board.id) ?? [] }))
+  const present = await liveBridge()?.presentInMany?.(boards.map(board => board.id))
+  return boards.map(board => ({ ...serializeBoardListEntry(board), present: present?.get(board.id) ?? [] }))
 })

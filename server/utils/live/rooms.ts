@@ -435,7 +435,12 @@ export function createLiveHub(options: LiveHubOptions) {
     return [...people.values()]
   }
 
-  return { join, receive, leave, closeSocketsOf, closeSession, closeBoard, refreshRole, sweep, flushAll, shutdown, stats, openDoc, editBoard, presentIn }
+  /** Boards with a room on this node. */
+  function openBoards(): string[] {
+    return [...rooms.keys()]
+  }
+
+  return { join, receive, leave, closeSocketsOf, closeSession, closeBoard, refreshRole, sweep, flushAll, shutdown, stats, openDoc, editBoard, presentIn, openBoards }
 }
 
 export type LiveHub = ReturnType<typeof createLiveHub>
