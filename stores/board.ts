@@ -14,9 +14,10 @@ import {
 import { bandFrequencies as bandGrid, bandVerdict as verdictOf, withReferenceFrequency } from '#shared/board/band'
 import { goalOf, reflectionReference, terminalImpedance, terminalImpedances } from '#shared/board/terminals'
 import { readoutOf } from '#shared/board/readout'
-import { mainFieldOf, parseFieldValue, withFieldValue, type EditField } from '#shared/board/element-values'
+import { mainFieldOf, readFieldValue, withFieldValue, type EditField } from '#shared/board/element-values'
+import { replyOf, type EntryReply } from '#shared/board/quantity-entry'
 import { ELEMENT_ADDITIONS } from '#shared/board/additions'
-import { settingsPatchFor, terminalWithField, type SettingsField, type TerminalField } from '#shared/board/entry'
+import { settingsEntry, terminalEntry, type SettingsField, type TerminalField } from '#shared/board/entry'
 import { matchSolutions } from '#shared/board/solutions'
 import { partRows } from '#shared/board/parts'
 import { useBoardDoc } from '~/composables/useBoardDoc'
@@ -319,21 +320,20 @@ export const useBoardStore = defineStore('board', () => {
    * Sets one field of an element from typed text ("4.7p", "12n", "45°"). Returns null when
    * done, or the message saying why the text was refused (the document is then untouched).
    */
-  function setElementField(id: string, field: EditField, text: string): string | null {
+  function setElementField(id: string, field: EditField, text: string): EntryReply {
     const element = elements.value.find(e => e.id === id)
     if (!element) return 'That element is no longer on the board.'
-    let value: number
     try {
-      value = parseFieldValue(element.kind, field, text)
+      const { value, warning } = readFieldValue(element.kind, field, text)
+      return replyOf(updateElement(id, { [field]: value }), warning)
     }
     catch (error) {
       return messageOf(error)
     }
-    return updateElement(id, { [field]: value })
   }
 
   /** Sets or (with empty text) removes the finite Q of an L or C; returns the refusal or null. */
-  function setElementQ(id: string, text: string): string | null {
+  function setElementQ(id: string, text: string): EntryReply {
     const element = elements.value.find(e => e.id === id)
     if (!element || (element.kind !== 'L' && element.kind !== 'C')) return 'Only inductors and capacitors take a Q.'
     if (!text.trim() || text.trim() === '∞') return updateElement(id, { q: undefined })
@@ -383,18 +383,20 @@ export const useBoardStore = defineStore('board', () => {
   const setTerminal = (side: TerminalSide, terminal: Terminal) => edit(() => boardDoc.setTerminal(side, terminal))
 
   /** Sets one settings field from typed text; returns the refusal message or null. */
-  function setSettingsField(field: SettingsField, text: string): string | null {
+  function setSettingsField(field: SettingsField, text: string): EntryReply {
     try {
-      return updateSettings(settingsPatchFor(settings.value, field, text))
+      const { patch, warning } = settingsEntry(settings.value, field, text)
+      return replyOf(updateSettings(patch), warning)
     }
     catch (error) {
       return messageOf(error)
     }
   }
   /** Sets one value of a terminal from typed text; returns the refusal message or null. */
-  function setTerminalField(side: TerminalSide, field: TerminalField, text: string): string | null {
+  function setTerminalField(side: TerminalSide, field: TerminalField, text: string): EntryReply {
     try {
-      return setTerminal(side, terminalWithField(settings.value[side], field, text))
+      const { terminal, warning } = terminalEntry(settings.value[side], field, text)
+      return replyOf(setTerminal(side, terminal), warning)
     }
     catch (error) {
       return messageOf(error)

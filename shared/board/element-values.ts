@@ -1,7 +1,11 @@
 // The one editable figure of each element kind (a part value, a length, a ratio), how it is shown
 // in engineering notation and how typed text becomes a value. Typed text is refused with a message
 // that says what is wrong; nothing here touches a document.
-import { formatEng, parseEng } from '../rf'
+import { formatEng } from '../rf'
+import {
+  CAPACITANCE_FIELD, INDUCTANCE_FIELD, RESISTANCE_FIELD, USUAL_Z0_OHM, ValueEntryError, readEntry,
+  type EntryField, type EntryReading,
+} from './quantity-entry'
 import type { BoardElement, ElementJson, ElementKind } from './schema'
 
 /** The field a tile edits and a chart drag changes. */
@@ -49,17 +53,17 @@ export function formatField(element: ElementJson, field: EditField): string {
   return formatEng(value, unitOf(element.kind, field))
 }
 
-export class ValueEntryError extends Error {
-  override name = 'ValueEntryError'
-}
+export { ValueEntryError }
 
-// Unit words people type after a number; removed before the SI prefix is read.
-const UNIT_SUFFIXES: Record<EditField, RegExp> = {
-  value: /\s*(H|F|Ω|ohms?|Ohms?)$/,
-  z0: /\s*(Ω|ohms?|Ohms?)$/,
-  deg: /\s*(°|deg|degrees?)$/,
-  ratio: /\s*(:\s*1|x)$/,
-  q: /$/,
+/** The entry field of `field` on a `kind` element: L in nH, C in pF, R and Z0 in Ω, lengths in °. */
+export function entryFieldOf(kind: ElementKind, field: EditField): EntryField {
+  if (field === 'z0') return RESISTANCE_FIELD('Line Z0', USUAL_Z0_OHM)
+  if (field === 'deg') return { what: 'Electrical length', quantity: 'angle', unit: '°' }
+  if (field === 'ratio') return { what: 'Turns ratio', quantity: 'ratio', unit: ':1' }
+  if (field === 'q') return { what: 'Q', quantity: 'number', unit: '' }
+  if (kind === 'L') return INDUCTANCE_FIELD('Inductance')
+  if (kind === 'C') return CAPACITANCE_FIELD('Capacitance')
+  return RESISTANCE_FIELD('Resistance')
 }
 
 /**
@@ -67,17 +71,13 @@ const UNIT_SUFFIXES: Record<EditField, RegExp> = {
  * Throws ValueEntryError with a message for the person typing.
  */
 export function parseFieldValue(kind: ElementKind, field: EditField, text: string): number {
-  const trimmed = text.trim()
-  if (!trimmed) throw new ValueEntryError('Type a value, e.g. 4.7p or 12n')
-  const bare = trimmed.replace(UNIT_SUFFIXES[field], '')
-  let value: number
-  try {
-    value = parseEng(bare)
-  }
-  catch (error) {
-    throw new ValueEntryError(error instanceof Error ? error.message : `“${trimmed}” is not a number`)
-  }
-  if (!Number.isFinite(value)) throw new ValueEntryError(`“${trimmed}” is not a finite number`)
+  return readFieldValue(kind, field, text).value
+}
+
+/** parseFieldValue with the warning of an implausible value. */
+export function readFieldValue(kind: ElementKind, field: EditField, text: string): EntryReading {
+  const reading = readEntry(text, entryFieldOf(kind, field))
+  const value = reading.value
   if (field === 'deg') {
     if (value < 0) throw new ValueEntryError('A length cannot be negative')
     if (value > 36000) throw new ValueEntryError('A length above 36000° is not plausible')
@@ -86,7 +86,7 @@ export function parseFieldValue(kind: ElementKind, field: EditField, text: strin
     const what = { ratio: 'A turns ratio', z0: 'A line impedance', q: 'Q', value: 'A part value' }[field]
     throw new ValueEntryError(`${what} must be greater than zero`)
   }
-  return value
+  return reading
 }
 
 /** A short name of the element for tiles and tables: "series L", "shunt open stub", "line". */

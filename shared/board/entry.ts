@@ -1,26 +1,10 @@
 // Typed entries for terminals and board settings: text in engineering notation becomes a new
 // terminal or a settings patch, or a ValueEntryError that says what is wrong.
-import { parseEng } from '../rf'
 import type { BoardSettings, Terminal } from './schema'
-import { ValueEntryError } from './element-values'
-
-function numberFrom(text: string, what: string, unit: RegExp): number {
-  const trimmed = text.trim()
-  if (!trimmed) throw new ValueEntryError(`Type a value for ${what}`)
-  let value: number
-  try {
-    value = parseEng(trimmed.replace(unit, ''))
-  }
-  catch (error) {
-    throw new ValueEntryError(`${what}: ${error instanceof Error ? error.message : 'not a number'}`)
-  }
-  if (!Number.isFinite(value)) throw new ValueEntryError(`${what} must be a finite number`)
-  return value
-}
-
-const OHMS = /\s*(Ω|ohms?|Ohms?)$/
-const HERTZ = /\s*(Hz|hz)$/
-const DB = /\s*dB$/i
+import {
+  CAPACITANCE_FIELD, FREQUENCY_FIELD, INDUCTANCE_FIELD, RESISTANCE_FIELD, USUAL_Z0_OHM, ValueEntryError, readEntry,
+  type EntryField, type EntryReading,
+} from './quantity-entry'
 
 export type TerminalField = 'r' | 'x' | 'l' | 'c'
 
@@ -30,11 +14,23 @@ export type TerminalField = 'r' | 'x' | 'l' | 'c'
  * removes that part.
  */
 export function terminalWithField(terminal: Terminal, field: TerminalField, text: string): Terminal {
+  return terminalEntry(terminal, field, text).terminal
+}
+
+/** The entry field of a terminal value: R and X in Ω, L in nH, C in pF. */
+export function terminalFieldOf(field: TerminalField): EntryField {
+  if (field === 'l') return INDUCTANCE_FIELD('L')
+  if (field === 'c') return CAPACITANCE_FIELD('C')
+  return RESISTANCE_FIELD(field.toUpperCase())
+}
+
+/** terminalWithField with the warning of an implausible value. */
+export function terminalEntry(terminal: Terminal, field: TerminalField, text: string): { terminal: Terminal, warning?: string } {
   if (terminal.kind === 'impedance') {
     if (field !== 'r' && field !== 'x') throw new ValueEntryError('A fixed impedance has only R and X')
-    const value = numberFrom(text, field === 'r' ? 'R' : 'X', OHMS)
+    const { value, warning } = readEntry(text, terminalFieldOf(field))
     if (field === 'r' && value < 0) throw new ValueEntryError('R cannot be negative (a passive terminal)')
-    return { kind: 'impedance', z: field === 'r' ? { re: value, im: terminal.z.im } : { re: terminal.z.re, im: value } }
+    return { terminal: { kind: 'impedance', z: field === 'r' ? { re: value, im: terminal.z.im } : { re: terminal.z.re, im: value } }, warning }
   }
   if (terminal.kind === 'rlc') {
     if (field === 'x') throw new ValueEntryError('An R-L-C model has no X field')
@@ -44,15 +40,14 @@ export function terminalWithField(terminal: Terminal, field: TerminalField, text
       if (next.r === undefined && next.l === undefined && next.c === undefined) {
         throw new ValueEntryError('An R-L-C model needs at least one of R, L and C')
       }
-      return next
+      return { terminal: next }
     }
-    const unit = field === 'r' ? OHMS : field === 'l' ? /\s*H$/ : /\s*F$/
-    const value = numberFrom(text, field.toUpperCase(), unit)
+    const { value, warning } = readEntry(text, terminalFieldOf(field))
     if (field === 'r' ? value < 0 : value <= 0) {
       throw new ValueEntryError(`${field.toUpperCase()} must be ${field === 'r' ? 'zero or more' : 'greater than zero'}`)
     }
     next[field] = value
-    return next
+    return { terminal: next, warning }
   }
   throw new ValueEntryError('A Z0 source has no values to edit')
 }
@@ -65,27 +60,42 @@ const SETTING_NAMES: Record<SettingsField, string> = {
   bandPoints: 'Band points', minReturnLossDb: 'Minimum return loss', f1Hz: 'Spec start', f2Hz: 'Spec stop',
 }
 
+/** The entry field of each setting: frequencies in MHz, Z0 in Ω, the spec's level in dB. */
+export function settingsFieldOf(field: SettingsField): EntryField {
+  const what = SETTING_NAMES[field]
+  if (field === 'z0') return RESISTANCE_FIELD(what, USUAL_Z0_OHM)
+  if (field === 'bandPoints') return { what, quantity: 'number', unit: '' }
+  if (field === 'minReturnLossDb') return { what, quantity: 'level', unit: 'dB' }
+  return FREQUENCY_FIELD(what)
+}
+
 /** The settings patch for typed text in one settings field ("915M", "50", "201", "10 dB"). */
 export function settingsPatchFor(settings: BoardSettings, field: SettingsField, text: string): Partial<BoardSettings> {
+  return settingsEntry(settings, field, text).patch
+}
+
+/** settingsPatchFor with the warning of an implausible value. */
+export function settingsEntry(settings: BoardSettings, field: SettingsField, text: string): { patch: Partial<BoardSettings>, warning?: string } {
+  const reading: EntryReading = readEntry(text, settingsFieldOf(field))
+  return { patch: settingsPatchOf(settings, field, reading.value), warning: reading.warning }
+}
+
+function settingsPatchOf(settings: BoardSettings, field: SettingsField, v: number): Partial<BoardSettings> {
   const what = SETTING_NAMES[field]
   switch (field) {
     case 'z0': {
-      const v = numberFrom(text, what, OHMS)
       if (v <= 0) throw new ValueEntryError('Z0 must be greater than zero')
       return { z0: v }
     }
     case 'bandPoints': {
-      const v = numberFrom(text, what, /$/)
       if (!Number.isInteger(v) || v < 2 || v > 2001) throw new ValueEntryError('Band points must be a whole number from 2 to 2001')
       return { bandPoints: v }
     }
     case 'minReturnLossDb': {
-      const v = numberFrom(text, what, DB)
       if (v < 0 || v > 80) throw new ValueEntryError('Minimum return loss must be between 0 and 80 dB')
       return { spec: { ...settings.spec, minReturnLossDb: v } }
     }
     default: {
-      const v = numberFrom(text, what, HERTZ)
       if (v <= 0) throw new ValueEntryError(`${what} must be greater than zero`)
       if (field === 'f1Hz' || field === 'f2Hz') {
         const spec = { ...settings.spec, [field]: v }

@@ -1,7 +1,8 @@
 // Real-part fields of the board: typed entry of source power, Q, tolerance and ratings, their
 // display, and a plain copy of analysis input for a worker. Pure; no Vue.
-import { dbmFromWatts, formatEng, parseEng, wattsFromDbm } from '../rf'
-import { ValueEntryError } from './element-values'
+import { dbmFromWatts, formatEng } from '../rf'
+import { entryFieldOf } from './element-values'
+import { ValueEntryError, readEntry, type EntryField } from './quantity-entry'
 import type { BoardElement } from './schema'
 
 export type PowerUnit = 'W' | 'dBm'
@@ -9,25 +10,9 @@ export type PowerUnit = 'W' | 'dBm'
 /** Source power used when a board sets none: 100 mW (20 dBm), a common small-radio level. */
 export const DEFAULT_SOURCE_POWER_W = 0.1
 
-function parseNumber(text: string, strip: RegExp, what: string): number {
-  const bare = text.trim().replace(/^±\s*/, '').replace(strip, '')
-  if (!bare) throw new ValueEntryError(`Type ${what}`)
-  let value: number
-  try {
-    value = parseEng(bare)
-  }
-  catch (error) {
-    throw new ValueEntryError(error instanceof Error ? error.message : `“${text}” is not a number`)
-  }
-  if (!Number.isFinite(value)) throw new ValueEntryError(`“${text}” is not a finite number`)
-  return value
-}
-
-/** Source power (W) from text in `unit`: "0.5", "500m", "500 mW" in W; "27", "27 dBm" in dBm. */
+/** Source power (W) from text: "0.5", "500m", "500 mW", "3 W", "27 dBm"; a bare number is in `unit`. */
 export function parsePowerW(text: string, unit: PowerUnit): number {
-  const isDbm = unit === 'dBm' || /dBm\s*$/.test(text.trim())
-  const value = parseNumber(text, isDbm ? /\s*dBm$/ : /\s*W$/, isDbm ? 'a power in dBm, e.g. 20' : 'a power in W, e.g. 0.5 or 100m')
-  const watts = isDbm ? wattsFromDbm(value) : value
+  const watts = readEntry(text, { what: 'Source power', quantity: 'power', unit }).value
   if (!(watts > 0)) throw new ValueEntryError('The source power must be greater than zero')
   if (watts > 1e6) throw new ValueEntryError('A source power above 1 MW is not plausible here')
   return watts
@@ -38,40 +23,45 @@ export function formatPower(watts: number, unit: PowerUnit): string {
   return unit === 'dBm' ? `${Number(dbmFromWatts(watts).toFixed(2))} dBm` : formatEng(watts, 'W')
 }
 
-/** An optional positive number from text ("" clears it); `unit` is stripped if typed. */
-function parseOptional(text: string, unit: string, what: string): number | undefined {
+/** An optional positive number from text ("" or "—" clears it). */
+function parseOptional(text: string, field: EntryField): number | undefined {
   if (text.trim() === '' || text.trim() === '—') return undefined
-  const value = parseNumber(text, new RegExp(`\\s*${unit}$`), what)
-  if (!(value > 0)) throw new ValueEntryError(`${what[0]!.toUpperCase()}${what.slice(1)} must be greater than zero`)
+  const value = readEntry(text, field).value
+  if (!(value > 0)) throw new ValueEntryError(`${field.what} must be greater than zero`)
   return value
 }
 
-/** A rating from text: "50", "50 V", "300m", "0.3 A"; empty clears it. */
+/** A rating from text: "50", "50 V", "300m", "0.3 A"; a bare number is in V or A; empty clears it. */
 export function parseRating(text: string, unit: 'V' | 'A'): number | undefined {
-  return parseOptional(text, unit, unit === 'V' ? 'a voltage rating' : 'a current rating')
+  return parseOptional(text, unit === 'V'
+    ? { what: 'A voltage rating', quantity: 'voltage', unit: 'V' }
+    : { what: 'A current rating', quantity: 'current', unit: 'A' })
 }
 
 /** A Q from text: "40"; empty clears it (the board's default Q then applies). */
 export function parseQ(text: string): number | undefined {
-  const q = parseOptional(text, '', 'a Q')
+  const q = parseOptional(text, { what: 'Q', quantity: 'number', unit: '' })
   if (q !== undefined && q > 1e5) throw new ValueEntryError('A Q above 100000 is not plausible')
   return q
 }
 
 /**
- * A tolerance from text: "5%" or "±5 %" → { tolerance: 0.05 }; "0.1p", "±0.1 pF", "2n" → an
- * absolute { toleranceAbs } in SI units; empty clears both. One form replaces the other.
+ * A tolerance from text: "5", "5%" or "±5 %" → { tolerance: 0.05 } (a bare number is a
+ * percentage); "0.1p", "±0.1 pF", "2n" → an absolute { toleranceAbs } in the part's own quantity;
+ * empty clears both. One form replaces the other.
  */
 export function parseTolerance(text: string, kind: BoardElement['kind']): { tolerance?: number, toleranceAbs?: number } {
   const t = text.trim()
   if (t === '' || t === '—') return { tolerance: undefined, toleranceAbs: undefined }
-  if (/%$/.test(t)) {
-    const percent = parseNumber(t, /\s*%$/, 'a tolerance, e.g. 5% or 0.1p')
+  if (kind !== 'L' && kind !== 'C' && kind !== 'R') throw new ValueEntryError('Only inductors, capacitors and resistors take a tolerance')
+  const part = entryFieldOf(kind, 'value')
+  const isPercent = /%$/.test(t) || /^±?\s*[\d.]+(e[+-]?\d+)?$/i.test(t)
+  if (isPercent) {
+    const percent = readEntry(t, { what: 'Tolerance', quantity: 'percent', unit: '%' }).value
     if (!(percent >= 0 && percent < 100)) throw new ValueEntryError('A tolerance must be from 0 % to below 100 %')
     return { tolerance: percent / 100, toleranceAbs: undefined }
   }
-  const unit = kind === 'L' ? 'H' : kind === 'C' ? 'F' : '(Ω|ohms?)'
-  const value = parseNumber(t, new RegExp(`\\s*${unit}$`), 'a tolerance, e.g. 5% or 0.1p')
+  const value = readEntry(t, { ...part, what: 'Tolerance', usual: undefined }).value
   if (!(value > 0)) throw new ValueEntryError('An absolute tolerance must be greater than zero')
   return { tolerance: undefined, toleranceAbs: value }
 }

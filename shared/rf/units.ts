@@ -8,7 +8,7 @@ const PREFIXES: readonly [string, number][] = [
   ['f', -15], ['p', -12], ['n', -9], ['µ', -6], ['m', -3], ['', 0], ['k', 3], ['M', 6], ['G', 9],
 ]
 const PREFIX_EXPONENT: Record<string, number> = {
-  f: -15, p: -12, n: -9, u: -6, 'µ': -6, 'μ': -6, m: -3, k: 3, M: 6, G: 9,
+  f: -15, p: -12, n: -9, u: -6, 'µ': -6, 'μ': -6, m: -3, k: 3, M: 6, G: 9, T: 12,
 }
 const UNITS = ['Hz', 'F', 'H', 'Ω', 'ohms', 'ohm', 'S']
 
@@ -37,14 +37,44 @@ export function formatEng(value: number, unit: string, digits = 3): string {
 
 const NUMBER = /^([+\-−]?)(\d+(?:\.\d*)?|\.\d+)(?:[eE]([+-]?\d+))?/
 
+/** What a unit symbol measures; the entry fields refuse a unit of another quantity. */
+export type Quantity = 'frequency' | 'inductance' | 'capacitance' | 'resistance' | 'conductance'
+  | 'power' | 'voltage' | 'current' | 'level' | 'angle' | 'percent' | 'ratio' | 'number'
+
+/** Canonical unit symbol → the quantity it measures ("dBm" is a power on a log scale). */
+export const UNIT_QUANTITY: Readonly<Record<string, Quantity>> = {
+  'Hz': 'frequency', 'H': 'inductance', 'F': 'capacitance', 'Ω': 'resistance', 'S': 'conductance',
+  'W': 'power', 'dBm': 'power', 'V': 'voltage', 'A': 'current', 'dB': 'level', '°': 'angle',
+  '%': 'percent', ':1': 'ratio',
+}
+// Spellings people type for a unit (matched whole, after the number and any prefix).
+const UNIT_SPELLINGS: readonly [RegExp, string][] = [
+  [/^hz$/i, 'Hz'], [/^H$/, 'H'], [/^F$/, 'F'], [/^(Ω|Ω|ohms?)$/i, 'Ω'], [/^S$/, 'S'], [/^W$/, 'W'],
+  [/^dBm$/i, 'dBm'], [/^V$/, 'V'], [/^A$/, 'A'], [/^dB$/i, 'dB'], [/^(°|deg|degrees?)$/i, '°'],
+  [/^%$/, '%'], [/^(:\s*1|x)$/i, ':1'],
+]
+const unitOfSpelling = (text: string) => UNIT_SPELLINGS.find(([re]) => re.test(text))?.[1]
+// Units that take no SI prefix ("k%" or "mdB" mean nothing).
+const NO_PREFIX = new Set(['dBm', 'dB', '°', '%', ':1'])
+
+/** A number read from engineering notation, with the unit it was written in. */
+export interface EngReading {
+  /** The value with the SI prefix applied (in the unit's base: "915 MHz" → 915e6). */
+  value: number
+  /** The canonical unit symbol typed ("Hz", "Ω", "dBm"…), or "" when none was typed. */
+  unit: string
+  /** Whether an SI prefix was typed ("12n", "2.45 GHz"). */
+  hasPrefix: boolean
+}
+
 /**
- * Reads engineering notation: "4.7p" → 4.7e-12, "12n", "2.45G", "50", "4.7 pF", "1e-12",
- * "2.2u" or "2.2µ" → 2.2e-6, "10 kΩ", "915 MHz". Prefixes f p n u/µ m k M G are case-sensitive
- * (m milli, M mega); an optional unit Hz, F, H, Ω, ohm or S may follow. Throws an Error whose
- * message says what is wrong for empty text, a missing number, an unknown prefix, digits after
- * the prefix ("1k5": write 1.5k) or a value too large.
+ * Reads engineering notation with its unit: "4.7 pF" → { value 4.7e-12, unit "F", hasPrefix },
+ * "915" → { value 915, unit "", hasPrefix false }. Prefixes f p n u/µ m k M G are case-sensitive
+ * (m milli, M mega); units Hz F H Ω (ohm) S W dBm V A dB ° (deg) % and ":1" may follow. Throws an
+ * Error whose message says what is wrong for empty text, a missing number, an unknown prefix or
+ * unit, digits after the prefix ("1k5": write 1.5k) or a value too large.
  */
-export function parseEng(text: string): number {
+export function readEng(text: string): EngReading {
   if (typeof text !== 'string') throw new Error('expected text such as 4.7p, 12n or 2.45G')
   const t = text.trim()
   if (t === '') throw new Error('the value is empty: type a number such as 4.7p, 12n or 2.45G')
@@ -53,20 +83,31 @@ export function parseEng(text: string): number {
   const sign = m[1] === '' || m[1] === '+' ? '' : '-'
   let rest = t.slice(m[0].length).trim()
   let exponent = m[3] === undefined ? 0 : Number(m[3])
-  const first = rest.charAt(0)
-  const unitHere = UNITS.find((u) => rest === u)
-  if (rest !== '' && unitHere === undefined) {
+  let unit = rest === '' ? '' : unitOfSpelling(rest)
+  let hasPrefix = false
+  if (unit === undefined) {
+    const first = rest.charAt(0)
     if (!(first in PREFIX_EXPONENT)) {
-      throw new Error(`"${t}": unknown prefix or unit "${rest}" (prefixes: f p n µ m k M G; units: Hz F H Ω S)`)
+      throw new Error(`"${t}": unknown prefix or unit "${rest}" (prefixes: f p n µ m k M G T; units: Hz F H Ω S W dBm V A dB °)`)
     }
     exponent += PREFIX_EXPONENT[first]!
+    hasPrefix = true
     rest = rest.slice(1).trim()
     if (/^\d/.test(rest)) throw new Error(`"${t}": digits after the prefix "${first}" — write e.g. 1.5k rather than 1k5`)
-    if (rest !== '' && !UNITS.includes(rest)) {
-      throw new Error(`"${t}": unknown unit "${rest}" after the prefix "${first}" (units: Hz F H Ω S)`)
+    unit = rest === '' ? '' : unitOfSpelling(rest)
+    if (unit === undefined || NO_PREFIX.has(unit)) {
+      throw new Error(`"${t}": unknown unit "${rest}" after the prefix "${first}" (units: Hz F H Ω S W V A)`)
     }
   }
   const value = Number(`${sign}${m[2]}e${exponent}`)
   if (!Number.isFinite(value)) throw new Error(`"${t}" is too large to be a number`)
-  return value
+  return { value, unit, hasPrefix }
+}
+
+/**
+ * Reads engineering notation: "4.7p" → 4.7e-12, "12n", "2.45G", "50", "4.7 pF", "1e-12",
+ * "2.2u" or "2.2µ" → 2.2e-6, "10 kΩ", "915 MHz" (the number of readEng; the unit is not checked).
+ */
+export function parseEng(text: string): number {
+  return readEng(text).value
 }
