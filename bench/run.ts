@@ -37,7 +37,7 @@ export const BENCH_MODULES: BenchModule[] = [
   },
   {
     name: 'live',
-    needs: 'a build (bash scripts/build.sh)',
+    needs: 'a build (bash scripts/build.sh) and Debian\'s postgresql and redis-server for the two-node part',
     run: async () => {
       const m = await import('./live')
       m.printLiveBench(await m.runLiveBench())
