@@ -3,21 +3,11 @@
 // between slices the worker posts its progress and yields to its message queue, so a `cancel`
 // sent meanwhile is seen within one slice (about 50 ms). A new `start` supersedes a running one.
 import { createMonteCarlo } from '../shared/rf/montecarlo'
+import { yieldToMessages } from './yield-to-messages'
 import type { MonteCarloWorkerRequest, MonteCarloWorkerReply } from './montecarlo-protocol'
 
 const scope = self as unknown as DedicatedWorkerGlobalScope
 let current: { runId: number, isCancelled: boolean } | null = null
-
-// A MessageChannel round trip is a macrotask without the 4 ms clamp of nested setTimeout.
-const channel = new MessageChannel()
-const waiting: (() => void)[] = []
-channel.port1.onmessage = () => waiting.shift()?.()
-function yieldToMessages(): Promise<void> {
-  return new Promise((resolve) => {
-    waiting.push(resolve)
-    channel.port2.postMessage(0)
-  })
-}
 
 function reply(message: MonteCarloWorkerReply, transfer: Transferable[] = []): void {
   scope.postMessage(message, transfer)

@@ -103,3 +103,27 @@ export function fanoModelImpedance(m: FanoInput, frequencyHz: number): Complex {
   const d = m.r * m.r + x * x
   return { re: (m.r * x * x) / d, im: (m.r * m.r * x) / d }
 }
+
+/**
+ * An estimate of the Fano limit for any load known at `frequencies` (Ω, one per frequency): the
+ * R-C or R-L model fitted at the band point nearest the arithmetic centre (`fanoModelsAt`), series
+ * or parallel, whichever follows the load more closely across the frequencies (least squared
+ * relative error); equally close (a fixed impedance fits neither), the one with the higher limit,
+ * so the estimate does not claim more than the fit can show. null when the centre point has no
+ * model (no reactance or no resistance there).
+ */
+export function fittedFanoModel(frequencies: readonly number[], loads: readonly Complex[], band: { fStart: number; fStop: number }): FittedFanoModel | null {
+  if (frequencies.length === 0 || frequencies.length !== loads.length) throw new RfInputError('loads', 'needs one impedance per frequency')
+  const mid = (frequencies[0]! + frequencies[frequencies.length - 1]!) / 2
+  let c = 0
+  frequencies.forEach((f, i) => { if (Math.abs(f - mid) < Math.abs(frequencies[c]! - mid)) c = i })
+  const fits = fanoModelsAt(loads[c]!, frequencies[c]!, band)
+  const errorOf = (m: FittedFanoModel) => frequencies.reduce((sum, f, i) => {
+    const zm = fanoModelImpedance(m, f)
+    const z = loads[i]!
+    return sum + ((zm.re - z.re) ** 2 + (zm.im - z.im) ** 2) / Math.max(z.re * z.re + z.im * z.im, 1e-300)
+  }, 0)
+  const scored = fits.map((m) => ({ m, e: errorOf(m) }))
+  scored.sort((a, b) => (Math.abs(a.e - b.e) > 1e-9 * Math.max(a.e, b.e, 1e-12) ? a.e - b.e : b.m.limitDb - a.m.limitDb))
+  return scored[0]?.m ?? null
+}

@@ -4,7 +4,7 @@
 // reflection zeros lie on the jω axis), and their in-band return loss staying below the limit.
 import { describe, expect, it } from 'vitest'
 import {
-  FANO_MODELS, RfInputError, bodeFanoLimitDb, fanoIntegralBound, fanoModelImpedance, fanoModelsAt, sweepFlat,
+  FANO_MODELS, RfInputError, bodeFanoLimitDb, fanoIntegralBound, fanoModelImpedance, fanoModelsAt, fittedFanoModel, sweepFlat,
   type FanoModel,
 } from '../../../shared/rf/index'
 import { chebyshevG, modelLadder, rippleForG1 } from './chebyshev-ladders'
@@ -114,5 +114,21 @@ describe('fanoModelsAt', () => {
   it('has no model for a resistive or non-passive point', () => {
     expect(fanoModelsAt({ re: 50, im: 0 }, 1e9, { fStart: 1e9, fStop: 2e9 })).toEqual([])
     expect(fanoModelsAt({ re: -5, im: 3 }, 1e9, { fStart: 1e9, fStop: 2e9 })).toEqual([])
+  })
+})
+
+describe('fittedFanoModel', () => {
+  const freqs = Array.from({ length: 11 }, (_, i) => 2e9 + i * 0.05e9)
+  it.each(FANO_MODELS)('recovers a %s load from its impedances, with its exact limit', (model) => {
+    const m = { model, r: 30, c: 2e-12, l: 4e-9, fStart: 2e9, fStop: 2.5e9 }
+    const loads = freqs.map(f => fanoModelImpedance(m, f))
+    const fit = fittedFanoModel(freqs, loads, { fStart: 2e9, fStop: 2.5e9 })!
+    expect(fit.model).toBe(model)
+    expect(fit.limitDb).toBeCloseTo(bodeFanoLimitDb(m), 6)
+  })
+  it('gives a fixed impedance the higher of its two limits', () => {
+    const fit = fittedFanoModel(freqs, freqs.map(() => ({ re: 20, im: -30 })), { fStart: 2e9, fStop: 2.5e9 })!
+    const both = fanoModelsAt({ re: 20, im: -30 }, freqs[5]!, { fStart: 2e9, fStop: 2.5e9 })
+    expect(fit.limitDb).toBe(Math.max(...both.map(b => b.limitDb)))
   })
 })
