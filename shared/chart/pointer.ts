@@ -2,7 +2,7 @@
  * What the pointer is over: the nearest handle within reach, and the readout at the pointer.
  */
 import type { Complex } from '../rf/types'
-import { impedanceOf } from '../rf/gamma'
+import { gammaOf, impedanceOf } from '../rf/gamma'
 import { formatEng } from '../rf/units'
 import { readoutOf } from '../board/readout'
 import type { ScreenPoint } from './viewport'
@@ -73,4 +73,17 @@ export function cursorReadout(gamma: Complex, z0: number): ReadoutRow[] {
     { label: 'VSWR', text: figure(r.vswr, 2) },
     { label: 'Return loss', text: figure(r.returnLossDb, 1, ' dB') },
   ]
+}
+
+/**
+ * Γ (against z0) of the point the dragged element leads to, as the trace computes it with the
+ * board's Q: the pointer only steers a drag along the element's lossless circle, so during a drag
+ * the readout shows this point (the one the tile and the end point agree with), not the pointer.
+ * Null without a drag or when the element is not in the trace.
+ */
+export function draggedPointGamma(impedances: readonly Complex[], elementIds: readonly string[], draggedId: string | null, z0: number): Complex | null {
+  if (draggedId === null) return null
+  const index = elementIds.indexOf(draggedId)
+  const z = index < 0 ? undefined : impedances[index + 1]
+  return z ? gammaOf(z, z0) : null
 }
