@@ -32,7 +32,7 @@ function rssKiB(pid: number): number {
 }
 
 /** Peer i connects to node i mod n. */
-async function measureLatency(baseUrls: string[], cookie: string, clients = 10, updates = 1000): Promise<LatencyFigures> {
+export async function measureLatency(baseUrls: string[], cookie: string, clients = 10, updates = 1000): Promise<LatencyFigures> {
   const boardId = await createBoard(baseUrls[0]!, cookie, 'Bench latency')
   const peers: LiveClient[] = Array.from({ length: clients }, (_, i) => connectLive(baseUrls[i % baseUrls.length]!, boardId, { cookie }))
   try {

@@ -65,6 +65,8 @@ export const BENCH_MODULES: BenchModule[] = [
     run: async () => {
       const m = await import('./search')
       m.printSearchBench(m.runSearchBench())
+      const live = await import('./search-live')
+      live.printSearchLiveBench(await live.runSearchLiveBench())
     },
   },
 ]

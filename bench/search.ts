@@ -3,7 +3,7 @@
 // (2) a plain exhaustive enumeration of the same set in C (bench/search-exhaustive.c, compiled
 //     here with the system cc -O3), one run each, and the ratio Node / C (target ≤ 0.05, and
 //     under 1 s in Node); the C best must equal the search's best.
-// The worker and live fan-out parts are in bench/search-live.ts.
+// The worker and live fan-out parts (they need a build and Chromium) are in bench/search-live.ts.
 import { execFileSync, spawnSync } from 'node:child_process'
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
