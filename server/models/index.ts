@@ -14,6 +14,8 @@ import { defineUpload } from './upload'
 import { defineOutboxMessage } from './outbox-message'
 import { defineLoginFailure } from './login-failure'
 import { defineSession } from './session'
+import { defineComment } from './comment'
+import { defineVerdict } from './verdict'
 
 function defineAll(sequelize: Sequelize) {
   const models = {
@@ -30,14 +32,19 @@ function defineAll(sequelize: Sequelize) {
     OutboxMessage: defineOutboxMessage(sequelize),
     LoginFailure: defineLoginFailure(sequelize),
     Session: defineSession(sequelize),
+    Comment: defineComment(sequelize),
+    Verdict: defineVerdict(sequelize),
   }
-  const { User, Workspace, Membership, Board, Snapshot, Template } = models
+  const { User, Workspace, Membership, Board, Snapshot, Template, Comment, Verdict } = models
   Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' })
   Membership.belongsTo(Workspace, { foreignKey: 'workspaceId', as: 'workspace' })
   Board.belongsTo(Workspace, { foreignKey: 'workspaceId', as: 'workspace' })
   Snapshot.belongsTo(User, { foreignKey: 'authorId', as: 'author' })
   Snapshot.belongsTo(Board, { foreignKey: 'boardId', as: 'board' })
   Template.belongsTo(User, { foreignKey: 'publishedBy', as: 'publisher' })
+  Comment.belongsTo(User, { foreignKey: 'authorId', as: 'author' })
+  Verdict.belongsTo(User, { foreignKey: 'giverId', as: 'giver' })
+  Snapshot.hasMany(Verdict, { foreignKey: 'snapshotId', as: 'verdicts' })
   return models
 }
 
@@ -67,3 +74,5 @@ export * from './upload'
 export * from './outbox-message'
 export * from './login-failure'
 export * from './session'
+export * from './comment'
+export * from './verdict'

@@ -51,3 +51,17 @@ export function snapshotSharedMail(input: { senderName: string, boardName: strin
     html: page(lines, { href: input.link, label: 'Open the board' }, footer),
   }
 }
+
+export function commentMentionMail(input: { writerName: string, boardName: string, excerpt: string, link: string }) {
+  const excerpt = input.excerpt.length > 500 ? `${input.excerpt.slice(0, 500)}…` : input.excerpt
+  const lines = [
+    `${input.writerName} mentioned you in a comment on the board "${input.boardName}":`,
+    excerpt,
+  ]
+  const footer = 'You get this because you are a member of the board\'s workspace and were mentioned by name.'
+  return {
+    subject: `${input.writerName} mentioned you on ${input.boardName}`,
+    text: `${lines.join('\n\n')}\n\n${input.link}\n\n${footer}\n`,
+    html: page(lines, { href: input.link, label: 'Open the comment' }, footer),
+  }
+}

@@ -17,12 +17,20 @@ let boardId = ''
 let snapshotId = ''
 let designerId = 0
 let counter = 0
+let designerSnapshotId = ''
+let adminThreadId = ''
 
 async function call(persona: Persona, method: string, path: string, body?: unknown) {
   const headers: Record<string, string> = {}
   if (cookies[persona]) headers.cookie = cookies[persona]!
   if (body !== undefined) headers['content-type'] = 'application/json'
-  const res = await fetch(`${baseUrl}${path}`, { method, headers, body: body === undefined ? undefined : JSON.stringify(body) })
+  const controller = new AbortController()
+  const res = await fetch(`${baseUrl}${path}`, { method, headers, body: body === undefined ? undefined : JSON.stringify(body), signal: controller.signal })
+  // An open event stream never ends: its status and headers are the answer.
+  if (res.ok && res.headers.get('content-type')?.startsWith('text/event-stream')) {
+    controller.abort()
+    return { status: res.status, json: null }
+  }
   const text = await res.text()
   return { status: res.status, json: text ? JSON.parse(text) : null }
 }
@@ -34,6 +42,13 @@ async function freshInvitation(): Promise<string> {
   expect(res.status).toBe(201)
   const [mail] = await mailsTo(inject('dbFile'), email)
   return linkIn(mail!.text_body, '/invite/').split('/invite/')[1]!
+}
+
+/** A new thread on the matrix board written by `persona`; answers its id. */
+async function newThread(persona: Persona): Promise<string> {
+  const res = await call(persona, 'POST', `/api/boards/${boardId}/comments`, { body: `matrix thread ${++counter}`, anchor: { kind: 'frequency', hz: 915e6 } })
+  expect(res.status).toBe(201)
+  return res.json.id
 }
 
 async function newBoard(name: string): Promise<string> {
@@ -59,6 +74,8 @@ beforeAll(async () => {
   snapshotId = snap.json.id
   const members = await call('admin', 'GET', '/api/workspaces/kestrel/members')
   designerId = members.json.find((m: { email: string }) => m.email === DEMO_USERS.designer.email).userId
+  designerSnapshotId = (await call('designer', 'POST', `/api/boards/${boardId}/snapshots`, { label: 'designer snapshot' })).json.id
+  adminThreadId = await newThread('admin')
 })
 
 interface Row {
@@ -118,6 +135,21 @@ const ROWS: Row[] = [
     request: () => ({ path: `/api/snapshots/${snapshotId}/share`, body: { email: DEMO_USERS.reviewer.email } }),
     expected: row(401, 200, 200, 404, 200),
   },
+  { route: 'GET /api/boards/:id/comments', method: 'GET', request: () => ({ path: `/api/boards/${boardId}/comments` }), expected: row(401, 200, 200, 404, 200) },
+  {
+    route: 'POST /api/boards/:id/comments', method: 'POST',
+    request: () => ({ path: `/api/boards/${boardId}/comments`, body: { body: 'Is this point inside the spec?', anchor: { kind: 'point', gamma: { re: 0.1, im: -0.2 } } } }),
+    expected: row(401, 201, 201, 404, 201),
+  },
+  { route: 'GET /api/boards/:id/review-events (event stream)', method: 'GET', request: () => ({ path: `/api/boards/${boardId}/review-events` }), expected: row(401, 200, 200, 404, 200) },
+  { route: 'POST /api/comments/:id/replies', method: 'POST', request: () => ({ path: `/api/comments/${adminThreadId}/replies`, body: { body: 'A reply.' } }), expected: row(401, 201, 201, 404, 201) },
+  { route: 'POST /api/comments/:id/resolve (an admin\'s thread)', method: 'POST', request: async () => ({ path: `/api/comments/${await newThread('admin')}/resolve` }), expected: row(401, 403, 200, 404, 200) },
+  { route: 'POST /api/comments/:id/resolve (a reviewer\'s own thread)', method: 'POST', request: async () => ({ path: `/api/comments/${await newThread('reviewer')}/resolve` }), expected: row(401, 200, 200, 404, 200) },
+  { route: 'POST /api/comments/:id/reopen (an admin\'s thread)', method: 'POST', request: () => ({ path: `/api/comments/${adminThreadId}/reopen` }), expected: row(401, 403, 200, 404, 200) },
+  { route: 'PATCH /api/comments/:id (an admin\'s comment)', method: 'PATCH', request: () => ({ path: `/api/comments/${adminThreadId}`, body: { body: 'Edited text.' } }), expected: row(401, 403, 403, 404, 200) },
+  { route: 'DELETE /api/comments/:id (a designer\'s thread)', method: 'DELETE', request: async () => ({ path: `/api/comments/${await newThread('designer')}` }), expected: row(401, 403, 200, 404, 200) },
+  { route: 'POST /api/snapshots/:id/verdict (an admin\'s snapshot)', method: 'POST', request: () => ({ path: `/api/snapshots/${snapshotId}/verdict`, body: { verdict: 'approved' } }), expected: row(401, 201, 403, 404, 403) },
+  { route: 'POST /api/snapshots/:id/verdict (a designer\'s snapshot)', method: 'POST', request: () => ({ path: `/api/snapshots/${designerSnapshotId}/verdict`, body: { verdict: 'changes-requested', note: 'Check the shunt C rating.' } }), expected: row(401, 201, 403, 404, 201) },
   {
     route: 'GET /api/invitations/:token (open; the link is the secret)', method: 'GET',
     request: async () => ({ path: `/api/invitations/${await freshInvitation()}` }),
