@@ -52,9 +52,15 @@ export type ElementStress = {
   readonly voltageRms: number
   /** RMS current through the part (A). */
   readonly currentRms: number
+  /** Peak voltage across the part (V): √2 · RMS for the sine at the design frequency. */
+  readonly voltagePeak: number
+  /** Peak current through the part (A): √2 · RMS. */
+  readonly currentPeak: number
   /** Power turned into heat in the part (W): its ESR or resistance; 0 for lossless kinds. */
   readonly dissipatedW: number
+  /** Voltage rating (V), compared with the peak voltage: capacitor makers rate in DC or peak volts. */
   readonly vRatingV: number | null
+  /** Current rating (A), compared with the RMS current: inductor current ratings are RMS (heating), common practice. */
   readonly iRatingA: number | null
   readonly isOverVoltage: boolean
   readonly isOverCurrent: boolean
@@ -178,10 +184,12 @@ export function elementStress(input: StressInput): StressResult {
         index,
         voltageRms,
         currentRms,
+        voltagePeak: Math.SQRT2 * voltageRms,
+        currentPeak: Math.SQRT2 * currentRms,
         dissipatedW: k2 * r.p,
         vRatingV,
         iRatingA,
-        isOverVoltage: vRatingV !== null && voltageRms > vRatingV,
+        isOverVoltage: vRatingV !== null && Math.SQRT2 * voltageRms > vRatingV,
         isOverCurrent: iRatingA !== null && currentRms > iRatingA,
       }
     }),

@@ -74,13 +74,24 @@ describe('stress: ratings, units and edge cases', () => {
     const plain = elementStress({ ...base, elements: c.elements })
     const [l, cap] = plain.elements
     const rated: RatedElement[] = [
-      { ...c.elements[0]!, iRatingA: l!.currentRms * 0.99, vRatingV: l!.voltageRms * 1.01 },
-      { ...c.elements[1]!, vRatingV: cap!.voltageRms * 0.99, iRatingA: cap!.currentRms * 1.01 },
+      { ...c.elements[0]!, iRatingA: l!.currentRms * 0.99, vRatingV: l!.voltagePeak * 1.01 },
+      { ...c.elements[1]!, vRatingV: cap!.voltagePeak * 0.99, iRatingA: cap!.currentRms * 1.01 },
     ]
     const out = elementStress({ ...base, elements: rated })
     expect(out.elements.map(s => [s.isOverVoltage, s.isOverCurrent])).toEqual([[false, true], [true, false]])
     expect(out.elements[0]!.iRatingA).toBeCloseTo(l!.currentRms * 0.99, 12)
     expect(plain.elements.every(s => !s.isOverVoltage && !s.isOverCurrent && s.vRatingV === null)).toBe(true)
+  })
+
+  it('compares a voltage rating with the peak, √2 times the RMS voltage', () => {
+    const plain = elementStress({ ...base, elements: c.elements })
+    const cap = plain.elements[1]!
+    expect(cap.voltagePeak).toBeCloseTo(cap.voltageRms * Math.SQRT2, 12)
+    expect(cap.currentPeak).toBeCloseTo(cap.currentRms * Math.SQRT2, 12)
+    // a rating above the RMS voltage but below the peak is exceeded (a 10 V part at 8.4 V rms, 11.9 V peak)
+    const between = (cap.voltageRms + cap.voltagePeak) / 2
+    const out = elementStress({ ...base, elements: [c.elements[0]!, { ...c.elements[1]!, vRatingV: between }] })
+    expect(out.elements[1]!.isOverVoltage).toBe(true)
   })
 
   it('scales voltages and currents with the square root of the power', () => {
