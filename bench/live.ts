@@ -24,7 +24,7 @@ export interface LiveBenchResult {
 
 const quantile = (sorted: number[], q: number) => sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))]!
 
-function rssKiB(pid: number): number {
+export function rssKiB(pid: number): number {
   const status = readFileSync(`/proc/${pid}/status`, 'utf8')
   const match = /^VmRSS:\s+(\d+) kB/m.exec(status)
   if (!match) throw new Error('no VmRSS in /proc status')

@@ -44,6 +44,14 @@ export const BENCH_MODULES: BenchModule[] = [
     },
   },
   {
+    name: 'flood',
+    needs: 'a build (bash scripts/build.sh)',
+    run: async () => {
+      const m = await import('./flood')
+      m.printFloodBench(await m.runFloodBench())
+    },
+  },
+  {
     name: 'drag',
     needs: 'a build (bash scripts/build.sh) and /usr/bin/chromium',
     run: async () => {

@@ -47,6 +47,8 @@ export const CLOSE_SHUTDOWN = 1012
 export const CLOSE_MALFORMED = 4400
 export const CLOSE_ACCESS_REVOKED = 4403
 export const CLOSE_BOARD_GONE = 4404
+/** The board's document is at its size cap; the edit that would pass it is refused. */
+export const CLOSE_DOCUMENT_TOO_LARGE = 4413
 
 /** Frames above this size close the connection. */
 export const MAX_FRAME_BYTES = 1024 * 1024

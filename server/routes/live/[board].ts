@@ -34,6 +34,9 @@ export default defineWebSocketHandler({
     context.connection = useLiveHub().join(context.boardId, {
       send: data => peer.send(data),
       close: (code, reason) => peer.close(code, reason),
+      // crossws exposes the node adapter's `ws` socket; its bufferedAmount counts unsent bytes.
+      bufferedAmount: () => peer.websocket.bufferedAmount ?? 0,
+      terminate: () => peer.terminate(),
     }, context.identity)
   },
   message(peer, message) {

@@ -20,6 +20,15 @@ export function syncStep2Frame(doc: Y.Doc, stateVector: Uint8Array): Uint8Array 
   return encoding.toUint8Array(encoder)
 }
 
+/** A sync step 2 frame around an already encoded update (answers from the room's cache). */
+export function syncStep2FrameOf(update: Uint8Array): Uint8Array {
+  const encoder = encoding.createEncoder()
+  encoding.writeVarUint(encoder, MESSAGE_SYNC)
+  encoding.writeVarUint(encoder, syncProtocol.messageYjsSyncStep2)
+  encoding.writeVarUint8Array(encoder, update)
+  return encoding.toUint8Array(encoder)
+}
+
 export function syncUpdateFrame(update: Uint8Array): Uint8Array {
   const encoder = encoding.createEncoder()
   encoding.writeVarUint(encoder, MESSAGE_SYNC)

@@ -6,21 +6,20 @@
 // (./types) so tests drive this with a plain `ws` server.
 import * as Y from 'yjs'
 import * as decoding from 'lib0/decoding'
-import * as encoding from 'lib0/encoding'
 import * as syncProtocol from 'y-protocols/sync'
 import * as awarenessProtocol from 'y-protocols/awareness'
 import { applyBoardState, encodeBoardState } from '../../../shared/board/ydoc'
 import {
-  CLOSE_ACCESS_REVOKED, CLOSE_BOARD_GONE, CLOSE_LOAD_FAILED, CLOSE_MALFORMED, CLOSE_MESSAGE_TOO_BIG,
+  CLOSE_ACCESS_REVOKED, CLOSE_BOARD_GONE, CLOSE_DOCUMENT_TOO_LARGE, CLOSE_LOAD_FAILED, CLOSE_MALFORMED, CLOSE_MESSAGE_TOO_BIG,
   CLOSE_POLICY, CLOSE_ROLE_CHANGED, CLOSE_SHUTDOWN, MAX_FRAME_BYTES, MAX_FRAMES_BEFORE_READY,
   MESSAGE_AWARENESS, MESSAGE_QUERY_AWARENESS, MESSAGE_SYNC, encodeAccessNotice, type LiveRole,
 } from '../../../shared/live/protocol'
-import { awarenessFrame, syncStep1Frame, syncUpdateFrame, updateHasContent } from './protocol'
+import { awarenessFrame, syncStep1Frame, syncStep2FrameOf, syncUpdateFrame, updateHasContent } from './protocol'
 import { removeStalePresence, stampAwarenessUpdate } from './presence'
 import { createSaveScheduler, type SaveScheduler } from './persistence'
 import { createUpdateLog, type UpdateLog } from './update-log'
 import { linkRoom, ORIGIN_REMOTE, type RelayBus, type RoomLink } from './relay'
-import { DEFAULT_TIMINGS, type BoardStateStore, type LiveIdentity, type LiveSocket, type LiveTimings } from './types'
+import { DEFAULT_LIMITS, DEFAULT_TIMINGS, type BoardStateStore, type LiveLimits, type LiveIdentity, type LiveSocket, type LiveTimings } from './types'
 
 type RoomStatus = 'loading' | 'ready' | 'failed' | 'closed'
 
@@ -37,6 +36,12 @@ interface Room {
   log?: UpdateLog
   /** With several nodes: the board's channel to the others (see ./relay). */
   link?: RoomLink
+  /** The whole document encoded once, until the next change (sync answers share it). */
+  encoded?: Uint8Array
+  /** Sync step 2 answers by the asker's state vector, until the next change. */
+  answers: Map<string, Uint8Array>
+  /** Encoded size at the last exact count plus every update since (an upper estimate). */
+  sizeEstimate: number
 }
 
 export interface LiveConnection {
@@ -48,12 +53,16 @@ export interface LiveConnection {
   queue: Uint8Array[]
   lastFrameAt: number
   lastDropNoticeAt: number
+  /** Token bucket of the frame-rate cap. */
+  frameTokens: number
+  frameTokensAt: number
   isClosed: boolean
 }
 
 export interface LiveHubOptions {
   store: BoardStateStore
   timings?: Partial<LiveTimings>
+  limits?: Partial<LiveLimits>
   log?: Pick<Console, 'error' | 'warn'>
   /** Joins the rooms to the other nodes' copies (Redis); absent on a single node. */
   relay?: RelayBus
@@ -64,6 +73,7 @@ const canEdit = (role: LiveRole) => role === 'admin' || role === 'designer'
 export function createLiveHub(options: LiveHubOptions) {
   const { store } = options
   const timings: LiveTimings = { ...DEFAULT_TIMINGS, ...options.timings }
+  const limits: LiveLimits = { ...DEFAULT_LIMITS, ...options.limits }
   const log = options.log ?? console
   const rooms = new Map<string, Room>()
   const connections = new Set<LiveConnection>()
@@ -71,6 +81,11 @@ export function createLiveHub(options: LiveHubOptions) {
 
   const send = (conn: LiveConnection, frame: Uint8Array) => {
     if (conn.isClosed) return
+    // A peer that does not read would make the server hold every answer: end it instead.
+    if ((conn.socket.bufferedAmount?.() ?? 0) + frame.byteLength > limits.maxPendingSendBytes) {
+      log.warn(`[live] user ${conn.identity.userId} is not reading on ${conn.boardId}; ending the connection`)
+      return drop(conn, CLOSE_POLICY, 'not reading', true)
+    }
     try {
       conn.socket.send(frame)
     }
@@ -89,7 +104,7 @@ export function createLiveHub(options: LiveHubOptions) {
     const awareness = new awarenessProtocol.Awareness(doc)
     // The server is not a participant: it publishes no presence of its own.
     awareness.setLocalState(null)
-    const room = { boardId, doc, awareness, status: 'loading', peers: new Set(), holds: 0 } as Omit<Room, 'ready'> as Room
+    const room = { boardId, doc, awareness, status: 'loading', peers: new Set(), holds: 0, answers: new Map(), sizeEstimate: 0 } as Omit<Room, 'ready'> as Room
     rooms.set(boardId, room)
     if (options.relay) {
       room.link = linkRoom({
@@ -109,6 +124,7 @@ export function createLiveHub(options: LiveHubOptions) {
         const { state, logId } = stored instanceof Uint8Array ? { state: stored, logId: 0 } : stored
         try {
           applyBoardState(doc, state)
+          room.sizeEstimate = state.byteLength
         }
         catch (error) {
           // A stored state that does not decode must not be overwritten by an empty document.
@@ -155,6 +171,9 @@ export function createLiveHub(options: LiveHubOptions) {
     // Every node saves what it holds, remote changes included, so a node that dies before its
     // save loses nothing another node has (saves merge with the stored state: board-store.ts).
     doc.on('update', (update: Uint8Array, origin: unknown) => {
+      room.encoded = undefined
+      room.answers.clear()
+      room.sizeEstimate += update.byteLength
       // Each node logs the updates it accepted itself; remote ones are logged by their own node
       // (and a node that dies before that still has them in every other node's next save).
       if (origin !== ORIGIN_REMOTE) room.log?.push(update)
@@ -216,10 +235,7 @@ export function createLiveHub(options: LiveHubOptions) {
   function handleSync(room: Room, conn: LiveConnection, decoder: decoding.Decoder) {
     const kind = decoding.readVarUint(decoder)
     if (kind === syncProtocol.messageYjsSyncStep1) {
-      const encoder = encoding.createEncoder()
-      encoding.writeVarUint(encoder, MESSAGE_SYNC)
-      syncProtocol.readSyncStep1(decoder, encoder, room.doc)
-      send(conn, encoding.toUint8Array(encoder))
+      send(conn, syncAnswer(room, decoding.readVarUint8Array(decoder)))
       return
     }
     if (kind !== syncProtocol.messageYjsSyncStep2 && kind !== syncProtocol.messageYjsUpdate) {
@@ -231,8 +247,37 @@ export function createLiveHub(options: LiveHubOptions) {
       if (updateHasContent(update)) noticeDropped(conn)
       return
     }
+    if (room.sizeEstimate + update.byteLength > limits.maxDocBytes) {
+      room.sizeEstimate = encodedState(room).byteLength
+      if (room.sizeEstimate + update.byteLength > limits.maxDocBytes) {
+        log.warn(`[live] board ${room.boardId} is at its ${limits.maxDocBytes} byte cap; refusing an edit from user ${conn.identity.userId}`)
+        return drop(conn, CLOSE_DOCUMENT_TOO_LARGE, 'document too large')
+      }
+    }
     // Origin = the sending connection, so the broadcast skips it.
     Y.applyUpdate(room.doc, update, conn)
+  }
+
+  function encodedState(room: Room): Uint8Array {
+    room.encoded ??= Y.encodeStateAsUpdate(room.doc)
+    return room.encoded
+  }
+
+  /**
+   * The sync step 2 answer to a state vector, encoded once per document version: a peer asking
+   * again and again (or many peers asking at once) get the same bytes, never a fresh copy each.
+   */
+  function syncAnswer(room: Room, stateVector: Uint8Array): Uint8Array {
+    const key = stateVector.byteLength <= 4096 ? Buffer.from(stateVector).toString('base64') : undefined
+    const cached = key === undefined ? undefined : room.answers.get(key)
+    if (cached) return cached
+    const isEmpty = stateVector.byteLength === 1 && stateVector[0] === 0
+    const answer = syncStep2FrameOf(isEmpty ? encodedState(room) : Y.encodeStateAsUpdate(room.doc, stateVector))
+    if (key !== undefined) {
+      if (room.answers.size >= 16) room.answers.clear()
+      room.answers.set(key, answer)
+    }
+    return answer
   }
 
   function noticeDropped(conn: LiveConnection) {
@@ -265,11 +310,12 @@ export function createLiveHub(options: LiveHubOptions) {
     room.doc.destroy()
   }
 
-  /** Closes a connection from the server side and forgets it. */
-  function drop(conn: LiveConnection, code: number, reason: string) {
+  /** Closes a connection from the server side (at once, dropping its queue, when `isAbrupt`) and forgets it. */
+  function drop(conn: LiveConnection, code: number, reason: string, isAbrupt = false) {
     if (conn.isClosed) return
     try {
-      conn.socket.close(code, reason)
+      if (isAbrupt && conn.socket.terminate) conn.socket.terminate()
+      else conn.socket.close(code, reason)
     }
     catch { /* already gone */ }
     leave(conn)
@@ -278,6 +324,7 @@ export function createLiveHub(options: LiveHubOptions) {
   function join(boardId: string, socket: LiveSocket, identity: LiveIdentity): LiveConnection {
     const conn: LiveConnection = {
       boardId, identity, socket, clientIds: new Set(), queue: [], lastFrameAt: Date.now(), lastDropNoticeAt: 0, isClosed: false,
+      frameTokens: limits.frameBurst, frameTokensAt: Date.now(),
     }
     if (isShuttingDown) {
       conn.isClosed = true
@@ -294,7 +341,12 @@ export function createLiveHub(options: LiveHubOptions) {
   function receive(conn: LiveConnection, frame: Uint8Array) {
     if (conn.isClosed) return
     if (frame.byteLength > MAX_FRAME_BYTES) return drop(conn, CLOSE_MESSAGE_TOO_BIG, 'frame above 1 MB')
-    conn.lastFrameAt = Date.now()
+    const now = Date.now()
+    conn.frameTokens = Math.min(limits.frameBurst, conn.frameTokens + (now - conn.frameTokensAt) * limits.framesPerSecond / 1000)
+    conn.frameTokensAt = now
+    if (conn.frameTokens < 1) return drop(conn, CLOSE_POLICY, 'too many frames')
+    conn.frameTokens -= 1
+    conn.lastFrameAt = now
     const room = rooms.get(conn.boardId)
     if (!room || !room.peers.has(conn)) return
     if (room.status !== 'ready') {

@@ -5,6 +5,10 @@ import type { LiveRole } from '../../../shared/live/protocol'
 export interface LiveSocket {
   send(data: Uint8Array): void
   close(code?: number, reason?: string): void
+  /** Bytes queued for this peer and not yet handed to the network (ws bufferedAmount), if known. */
+  bufferedAmount?(): number
+  /** Ends the connection at once, dropping what is queued (for a peer that does not read). */
+  terminate?(): void
 }
 
 /** Who is on the other end, fixed at upgrade time from the session and the membership. */
@@ -34,6 +38,29 @@ export interface BoardStateStore {
   saveState(boardId: string, update: Uint8Array, coveredLogId?: number): Promise<void>
   /** Appends a batch of accepted updates to the board's log; answers the row's id. Without it, only full saves. */
   appendUpdate?(boardId: string, update: Uint8Array): Promise<number>
+}
+
+/** What one connection and one document may cost the server. */
+export interface LiveLimits {
+  /** Frames a connection may send per second, sustained… */
+  framesPerSecond: number
+  /** …and in one burst; past it the connection is closed (1008). */
+  frameBurst: number
+  /** Bytes queued towards a peer that is not reading; past it the connection is ended. */
+  maxPendingSendBytes: number
+  /** Encoded size of a board's document; an edit that would pass it is refused and its sender closed (4413). */
+  maxDocBytes: number
+}
+
+export const DEFAULT_LIMITS: LiveLimits = {
+  // A client sends at most ~20 presence frames a second (usePresence throttles to 50 ms) plus its
+  // edits: 100 a second with bursts of 200 is several times what a person produces.
+  framesPerSecond: 100,
+  frameBurst: 200,
+  // Four times the largest document, so a slow reader still gets a full sync.
+  maxPendingSendBytes: 16 * 1024 * 1024,
+  // A board of 100 elements with a long edit history encodes to well under 100 KB.
+  maxDocBytes: 4 * 1024 * 1024,
 }
 
 export interface LiveTimings {

@@ -25,6 +25,8 @@ export async function startTestHub(options: LiveHubOptions): Promise<TestHub> {
     const conn = hub.join(boardId, {
       send: data => ws.send(data),
       close: (code, reason) => ws.close(code, reason),
+      bufferedAmount: () => ws.bufferedAmount,
+      terminate: () => ws.terminate(),
     }, identity)
     ws.on('message', data => hub.receive(conn, new Uint8Array(data as Buffer)))
     ws.on('close', () => hub.leave(conn))
