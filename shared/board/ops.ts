@@ -24,7 +24,7 @@ export function newElementId(): string {
   return Array.from(bytes, b => b.toString(16).padStart(2, '0')).join('')
 }
 
-function validElement(input: unknown): BoardElement {
+export function validElement(input: unknown): BoardElement {
   const parsed = BoardElementSchema.safeParse(input)
   if (!parsed.success) {
     const issue = parsed.error.issues[0]
@@ -80,8 +80,11 @@ export function moveElement(doc: Y.Doc, id: string, toIndex: number, origin: unk
 
 /** Changes fields of one element; the result must still be a valid element of the same kind. */
 export function updateElement(doc: Y.Doc, id: string, patch: ElementPatch, origin: unknown = ORIGIN_LOCAL): void {
-  const index = requireIndex(doc, id)
-  const map = elementsArray(doc).get(index)
+  patchElementMap(doc, elementsArray(doc).get(requireIndex(doc, id)), id, patch, origin)
+}
+
+/** Applies a patch to one element's Y.Map (of any ladder) after checking the merged element. */
+export function patchElementMap(doc: Y.Doc, map: Y.Map<unknown>, id: string, patch: ElementPatch, origin: unknown = ORIGIN_LOCAL): void {
   if ('id' in patch && patch.id !== id) throw new BoardEditError('An element id cannot change')
   if ('kind' in patch && patch.kind !== map.get('kind')) throw new BoardEditError('An element kind cannot change')
   const merged: Record<string, unknown> = { ...map.toJSON(), ...patch }
@@ -147,5 +150,9 @@ export function replaceBoard(doc: Y.Doc, content: BoardContent, origin: unknown 
   const settings = BoardSettingsSchema.safeParse(content.settings)
   if (!settings.success) throw new BoardEditError(`Invalid settings: ${settings.error.issues[0]?.message}`)
   const elements = content.elements.map(validElement)
-  doc.transact(() => writeBoardContent(doc, { settings: settings.data, elements }), origin)
+  const sides = {
+    ...(content.inputSide ? { inputSide: content.inputSide.map(validElement) } : {}),
+    ...(content.outputSide ? { outputSide: content.outputSide.map(validElement) } : {}),
+  }
+  doc.transact(() => writeBoardContent(doc, { settings: settings.data, elements, ...sides }), origin)
 }

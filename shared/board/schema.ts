@@ -145,6 +145,8 @@ export const SETTINGS_FIELDS = {
   // Optional keys, added later: an older document simply lacks them (the reader reports nothing).
   /** Q given to L and C parts that have none of their own; absent, such parts are lossless. */
   defaultQ: DefaultQSchema.optional(),
+  /** An amplifier board's device: its .s2p upload (with a noise block when the file has one). */
+  device: z.object({ uploadId, fileName: z.string().min(1).max(255) }).strict().optional(),
   /** Available power of the source (W) for the stress figures. */
   sourcePowerW: positive.refine(v => v <= 1e6, 'must be at most 1 MW').optional(),
 }
@@ -173,9 +175,21 @@ export const DEFAULT_SETTINGS: BoardSettings = {
 export const BoardSnapshotSchema = z.object({
   settings: BoardSettingsSchema,
   elements: z.array(BoardElementSchema),
+  /**
+   * An amplifier board's two networks, each traced from its terminal (Z0) towards the device: the
+   * input side from the source, the output side from the load. Absent on passive boards (and on
+   * every board made before amplifier boards), which therefore read exactly as they always did.
+   */
+  inputSide: z.array(BoardElementSchema).optional(),
+  outputSide: z.array(BoardElementSchema).optional(),
   problems: z.array(z.string()),
 })
 /** The validated plain view of a board document; `problems` lists what the reader skipped. */
 export type BoardSnapshot = z.infer<typeof BoardSnapshotSchema>
 /** What a board is built from: a snapshot without the reader's problem list. */
-export type BoardContent = Pick<BoardSnapshot, 'settings' | 'elements'>
+export type BoardContent = Pick<BoardSnapshot, 'settings' | 'elements' | 'inputSide' | 'outputSide'>
+/** The two networks of an amplifier board. */
+export type AmplifierSide = 'inputSide' | 'outputSide'
+export const AMPLIFIER_SIDES: readonly AmplifierSide[] = ['inputSide', 'outputSide']
+/** The device reference kept in settings.device. */
+export type DeviceRef = NonNullable<BoardSettings['device']>

@@ -4,8 +4,8 @@
 // through ops.ts (or createBoardDoc/applyBoardState here).
 import * as Y from 'yjs'
 import {
-  BoardElementSchema, DEFAULT_SETTINGS, SETTINGS_FIELDS,
-  type BoardContent, type BoardElement, type BoardSettings, type BoardSnapshot, type SettingsKey,
+  AMPLIFIER_SIDES, BoardElementSchema, DEFAULT_SETTINGS, SETTINGS_FIELDS,
+  type AmplifierSide, type BoardContent, type BoardElement, type BoardSettings, type BoardSnapshot, type SettingsKey,
 } from './schema'
 
 /** Transaction origins. Strings, not symbols, so two bundles of this module still agree. */
@@ -23,6 +23,11 @@ export function boardMap(doc: Y.Doc): Y.Map<unknown> {
 
 export function elementsArray(doc: Y.Doc): Y.Array<Y.Map<unknown>> {
   return doc.getArray<Y.Map<unknown>>(ELEMENTS_ARRAY)
+}
+
+/** An amplifier board's input or output network: a Y.Array like `elements`, named after the side. */
+export function sideArray(doc: Y.Doc, side: AmplifierSide): Y.Array<Y.Map<unknown>> {
+  return doc.getArray<Y.Map<unknown>>(side)
 }
 
 function issueText(error: { issues: { path: PropertyKey[]; message: string }[] }): string {
@@ -65,23 +70,23 @@ function readSettings(map: Y.Map<unknown>, problems: string[]): BoardSettings {
   return result
 }
 
-function readElements(array: Y.Array<unknown>, problems: string[]): BoardElement[] {
+function readElements(array: Y.Array<unknown>, problems: string[], label = 'elements'): BoardElement[] {
   const elements: BoardElement[] = []
   const seen = new Set<string>()
   array.toArray().forEach((entry, index) => {
     const plain = plainOf(entry)
     if (!plain) {
-      problems.push(`elements[${index}] is not an element map; skipped`)
+      problems.push(`${label}[${index}] is not an element map; skipped`)
       return
     }
     const parsed = BoardElementSchema.safeParse(plain)
     if (!parsed.success) {
-      problems.push(`elements[${index}] is invalid (${issueText(parsed.error)}); skipped`)
+      problems.push(`${label}[${index}] is invalid (${issueText(parsed.error)}); skipped`)
       return
     }
     // Two concurrent moves of one element can leave two copies: keep the first.
     if (seen.has(parsed.data.id)) {
-      problems.push(`elements[${index}] repeats id ${parsed.data.id}; skipped`)
+      problems.push(`${label}[${index}] repeats id ${parsed.data.id}; skipped`)
       return
     }
     seen.add(parsed.data.id)
@@ -95,7 +100,12 @@ export function readBoard(doc: Y.Doc): BoardSnapshot {
   const problems: string[] = []
   const settings = readSettings(boardMap(doc), problems)
   const elements = readElements(elementsArray(doc) as Y.Array<unknown>, problems)
-  return { settings, elements, problems }
+  const snapshot: BoardSnapshot = { settings, elements, problems }
+  // The sides appear only on amplifier boards, so every other board reads as it always has.
+  if (settings.device || AMPLIFIER_SIDES.some(side => sideArray(doc, side).length > 0)) {
+    for (const side of AMPLIFIER_SIDES) snapshot[side] = readElements(sideArray(doc, side) as Y.Array<unknown>, problems, side)
+  }
+  return snapshot
 }
 
 /** A Y.Map holding one element's JSON; undefined fields are left out (Yjs cannot store them). */
@@ -114,6 +124,14 @@ export function writeBoardContent(doc: Y.Doc, content: BoardContent): void {
   const array = elementsArray(doc)
   if (array.length) array.delete(0, array.length)
   array.insert(0, content.elements.map(elementToYMap))
+  // A passive board's content (an older snapshot, say) clears any sides and the device.
+  if (!content.settings.device) map.delete('device')
+  for (const side of AMPLIFIER_SIDES) {
+    const sideElements = content[side] ?? []
+    const target = sideArray(doc, side)
+    if (target.length) target.delete(0, target.length)
+    if (sideElements.length) target.insert(0, sideElements.map(elementToYMap))
+  }
 }
 
 /** A new document holding the given board, written in one ORIGIN_LOAD transaction. */
