@@ -3,10 +3,12 @@
 // `useBoardDoc().doc` (never to the store).
 import * as Y from 'yjs'
 import * as ops from '#shared/board/ops'
+import * as amplifierOps from '#shared/board/amplifier-ops'
 import {
-  BOARD_MAP, ELEMENTS_ARRAY, ORIGIN_LOCAL, applyBoardState, createBoardDoc, readBoard,
+  BOARD_MAP, ELEMENTS_ARRAY, ORIGIN_LOCAL, applyBoardState, createBoardDoc, readBoard, sideArray,
 } from '#shared/board/ydoc'
-import type { BoardContent, BoardSettings, BoardSnapshot, Terminal, TerminalSide } from '#shared/board/schema'
+import { AMPLIFIER_SIDES } from '#shared/board/schema'
+import type { AmplifierSide, BoardContent, BoardSettings, BoardSnapshot, DeviceRef, Terminal, TerminalSide } from '#shared/board/schema'
 
 /** Where the open document reports to (the board store). */
 export interface BoardDocSink {
@@ -25,8 +27,10 @@ let session: OpenSession | null = null
 function attach(doc: Y.Doc, sink: BoardDocSink): OpenSession {
   const map = doc.getMap(BOARD_MAP)
   const array = doc.getArray(ELEMENTS_ARRAY)
+  // An amplifier board's two side ladders are observed and undone like the main ladder.
+  const sides = AMPLIFIER_SIDES.map(side => sideArray(doc, side))
   // Only the local user's edits are undoable; each committed edit is its own step.
-  const undoManager = new Y.UndoManager([map, array], {
+  const undoManager = new Y.UndoManager([map, array, ...sides], {
     trackedOrigins: new Set([ORIGIN_LOCAL]),
     captureTimeout: 0,
   })
@@ -43,6 +47,7 @@ function attach(doc: Y.Doc, sink: BoardDocSink): OpenSession {
   })
   map.observeDeep(push)
   array.observeDeep(push)
+  for (const s of sides) s.observeDeep(push)
   undoManager.on('stack-item-added', history)
   undoManager.on('stack-item-popped', history)
   undoManager.on('stack-cleared', history)
@@ -54,6 +59,7 @@ function attach(doc: Y.Doc, sink: BoardDocSink): OpenSession {
     detach: () => {
       map.unobserveDeep(push)
       array.unobserveDeep(push)
+      for (const s of sides) s.unobserveDeep(push)
       undoManager.destroy()
     },
   }
@@ -110,5 +116,8 @@ export function useBoardDoc() {
     updateSettings: (patch: Partial<BoardSettings>) => ops.updateSettings(requireDoc(), patch),
     setTerminal: (side: TerminalSide, terminal: Terminal) => ops.setTerminal(requireDoc(), side, terminal),
     replaceBoard: (content: BoardContent) => ops.replaceBoard(requireDoc(), content),
+    setDevice: (device: DeviceRef | null) => amplifierOps.setDevice(requireDoc(), device),
+    replaceSide: (side: AmplifierSide, elements: ops.NewElement[]) => amplifierOps.replaceSide(requireDoc(), side, elements),
+    updateSideElement: (side: AmplifierSide, id: string, patch: ops.ElementPatch) => amplifierOps.updateSideElement(requireDoc(), side, id, patch),
   }
 }

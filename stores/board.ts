@@ -22,6 +22,7 @@ import { matchSolutions } from '#shared/board/solutions'
 import { partRows } from '#shared/board/parts'
 import { useBoardDoc } from '~/composables/useBoardDoc'
 import { useMeasuredStore } from '~/stores/measured'
+import { useAmplifierStore } from '~/stores/amplifier'
 import { measuredCoverage, measuredPartUploadIds, measuredUploadIds, splitByCoverage } from '#shared/board/measured'
 
 export interface BoardRecordInput extends BoardContent {
@@ -248,6 +249,7 @@ export const useBoardStore = defineStore('board', () => {
   const boardDoc = useBoardDoc()
 
   function applySnapshot(snapshot: BoardSnapshot) {
+    useAmplifierStore().applySides(snapshot)
     settings.value = snapshot.settings
     elements.value = snapshot.elements
     problems.value = snapshot.problems
