@@ -1,9 +1,21 @@
 // Text for figures on screen: impedances, admittances, decibels, frequencies.
 import { formatEng, isInfinite, type Complex } from '../rf'
 
+/**
+ * A complex value with rounding noise removed: a part smaller than the last shown digit of the
+ * larger part (`digits` significant figures) is zero, so 50 − j6e-15 Ω reads "50.00 + j0.000 Ω".
+ */
+export function withoutNoise(z: Complex, digits = 4): Complex {
+  const scale = Math.max(Math.abs(z.re), Math.abs(z.im))
+  if (!Number.isFinite(scale) || scale === 0) return z
+  const floor = scale * 10 ** -digits
+  return { re: Math.abs(z.re) < floor ? 0 : z.re, im: Math.abs(z.im) < floor ? 0 : z.im }
+}
+
 /** "18.0 − j32.0 Ω": a complex value with its unit; an open is "open (∞)". */
-export function formatComplex(z: Complex, unit: string, digits = 4): string {
-  if (isInfinite(z)) return 'open (∞)'
+export function formatComplex(value: Complex, unit: string, digits = 4): string {
+  if (isInfinite(value)) return 'open (∞)'
+  const z = withoutNoise(value, digits)
   const sign = z.im < 0 || Object.is(z.im, -0) ? '−' : '+'
   const part = (x: number) => {
     const a = Math.abs(x)
@@ -27,6 +39,8 @@ export function formatDb(db: number | null): string {
 /** A plain figure to a few significant digits; infinity as "∞". */
 export function formatFigure(x: number, digits = 3): string {
   if (!Number.isFinite(x)) return '∞'
+  // Rounding noise of an exact zero (a node Q of 1e-16 at a real point) reads as zero.
+  if (Math.abs(x) < 1e-9) return '0'
   return String(Number(x.toPrecision(digits)))
 }
 

@@ -5,6 +5,7 @@ import type { Complex } from '../rf/types'
 import { gammaOf, impedanceOf } from '../rf/gamma'
 import { formatEng } from '../rf/units'
 import { readoutOf } from '../board/readout'
+import { withoutNoise } from '../board/format'
 import type { ScreenPoint } from './viewport'
 
 /** How far from a handle's centre a press still grabs it (px): a comfortable finger-free target. */
@@ -43,8 +44,9 @@ export interface ReadoutRow {
   readonly text: string
 }
 
-function complexText(z: Complex, unit: string): string {
-  if (!Number.isFinite(z.re) || !Number.isFinite(z.im)) return `∞ ${unit}`
+function complexText(value: Complex, unit: string): string {
+  if (!Number.isFinite(value.re) || !Number.isFinite(value.im)) return `∞ ${unit}`
+  const z = withoutNoise(value, 3)
   const sign = z.im < 0 ? '−' : '+'
   return `${formatEng(z.re, unit)} ${sign} j${formatEng(Math.abs(z.im), unit)}`
 }
