@@ -7,6 +7,7 @@ import { migration as m0004 } from './0004-uploads-outbox-login-failures'
 import { migration as m0005 } from './0005-board-updates'
 import { migration as m0006 } from './0006-sessions'
 import { migration as m0007 } from './0007-comments-and-verdicts'
+import { migration as m0010 } from './0010-parts-library'
 
-export const migrations: Migration[] = [m0001, m0002, m0003, m0004, m0005, m0006, m0007]
+export const migrations: Migration[] = [m0001, m0002, m0003, m0004, m0005, m0006, m0007, m0010]
 export type { Migration }

@@ -16,6 +16,7 @@ import { defineLoginFailure } from './login-failure'
 import { defineSession } from './session'
 import { defineComment } from './comment'
 import { defineVerdict } from './verdict'
+import { definePart } from './part'
 
 function defineAll(sequelize: Sequelize) {
   const models = {
@@ -34,6 +35,7 @@ function defineAll(sequelize: Sequelize) {
     Session: defineSession(sequelize),
     Comment: defineComment(sequelize),
     Verdict: defineVerdict(sequelize),
+    Part: definePart(sequelize),
   }
   const { User, Workspace, Membership, Board, Snapshot, Template, Comment, Verdict } = models
   Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' })
@@ -76,3 +78,4 @@ export * from './login-failure'
 export * from './session'
 export * from './comment'
 export * from './verdict'
+export * from './part'

@@ -50,9 +50,9 @@ describe('migrations', () => {
     const sequelize = await freshDb()
     const previous = migrations[migrations.length - 2]!.name
     await migrator(sequelize).up({ to: previous })
-    // The last migration (0007) adds the review tables.
-    expect(await tableNames(sequelize)).not.toContain('comments')
-    expect(await tableNames(sequelize)).toContain('sessions')
+    // The last migration (0010) adds the parts library; the one before it (0007) the review tables.
+    expect(await tableNames(sequelize)).toEqual(expect.arrayContaining(['sessions', 'comments', 'verdicts']))
+    expect(await tableNames(sequelize)).not.toContain('parts')
     // Rows written by the previous schema: the demo seed touches every table it had.
     expect(await seedDemo(sequelize)).toBe(true)
     const [before] = await sequelize.query('SELECT id, name, summary FROM boards ORDER BY id')
@@ -61,7 +61,7 @@ describe('migrations', () => {
     const [after] = await sequelize.query('SELECT id, name, summary FROM boards ORDER BY id')
     expect(after).toEqual(before)
     expect((before as unknown[]).length).toBeGreaterThan(0)
-    expect(await tableNames(sequelize)).toEqual(expect.arrayContaining(['comments', 'verdicts']))
+    expect(await tableNames(sequelize)).toContain('parts')
     const [users] = await sequelize.query('SELECT email FROM users ORDER BY id')
     expect((users as { email: string }[]).map(u => u.email)).toEqual(['mara@kestrel.example', 'tomas@kestrel.example', 'ines@kestrel.example'])
   })

@@ -32,7 +32,8 @@ async function call(persona: Persona, method: string, path: string, body?: unkno
     return { status: res.status, json: null }
   }
   const text = await res.text()
-  return { status: res.status, json: text ? JSON.parse(text) : null }
+  // The CSV export answers text, everything else JSON.
+  return { status: res.status, json: text && res.headers.get('content-type')?.includes('json') ? JSON.parse(text) : text || null }
 }
 
 /** A new invitation to kestrel for an address nobody has; answers the token from the mailed link. */
@@ -170,6 +171,36 @@ const ROWS: Row[] = [
     request: () => ({ path: '/api/invitations/unknown-token-unknown-token-0000/accept' }),
     expected: row(401, 404, 404, 404, 404),
   },
+  { route: 'GET /api/workspaces/:slug/parts', method: 'GET', request: () => ({ path: '/api/workspaces/kestrel/parts' }), expected: row(401, 200, 200, 404, 200) },
+  {
+    route: 'POST /api/workspaces/:slug/parts', method: 'POST',
+    request: () => ({ path: '/api/workspaces/kestrel/parts', body: { partId: `MATRIX-L-${++counter}`, kind: 'L', value: 3.3e-9, stocked: true } }),
+    expected: row(401, 403, 201, 404, 201),
+  },
+  {
+    route: 'PATCH /api/workspaces/:slug/parts/:partId', method: 'PATCH',
+    request: async () => {
+      const partId = `MATRIX-P-${++counter}`
+      expect((await call('admin', 'POST', '/api/workspaces/kestrel/parts', { partId, kind: 'C', value: 1e-12 })).status).toBe(201)
+      return { path: `/api/workspaces/kestrel/parts/${partId}`, body: { partId, kind: 'C', value: 1.2e-12, stocked: true } }
+    },
+    expected: row(401, 403, 200, 404, 200),
+  },
+  {
+    route: 'DELETE /api/workspaces/:slug/parts/:partId', method: 'DELETE',
+    request: async () => {
+      const partId = `MATRIX-D-${++counter}`
+      expect((await call('admin', 'POST', '/api/workspaces/kestrel/parts', { partId, kind: 'C', value: 1e-12 })).status).toBe(201)
+      return { path: `/api/workspaces/kestrel/parts/${partId}` }
+    },
+    expected: row(401, 403, 200, 404, 200),
+  },
+  {
+    route: 'POST /api/workspaces/:slug/parts/import', method: 'POST',
+    request: () => ({ path: '/api/workspaces/kestrel/parts/import', body: { csv: `part_id,kind,value\nMATRIX-I-${++counter},L,4.7n\n` } }),
+    expected: row(401, 403, 200, 404, 200),
+  },
+  { route: 'GET /api/workspaces/:slug/parts/export', method: 'GET', request: () => ({ path: '/api/workspaces/kestrel/parts/export' }), expected: row(401, 200, 200, 404, 200) },
   {
     route: 'POST /api/rf/search',
     method: 'POST',

@@ -22,7 +22,7 @@ async function postgresQuery<T>(url: string, sql: string, params: unknown[]): Pr
 
 export const TABLES = [
   'users', 'workspaces', 'memberships', 'invitations', 'password_resets', 'boards', 'board_updates', 'snapshots',
-  'templates', 'uploads', 'outbox', 'login_failures', 'sessions', 'comments', 'verdicts',
+  'templates', 'uploads', 'outbox', 'login_failures', 'sessions', 'comments', 'verdicts', 'parts',
 ] as const
 
 function open(file: string, mode: number): Promise<sqlite3.Database> {
