@@ -99,6 +99,32 @@ describe('two nodes on one database and one Redis', () => {
     await expect.poll(() => namesOn(nodeB), { timeout: 15_000 }).toEqual([])
   })
 
+  it('tells a review listener on one node about a comment posted through the other', async () => {
+    const boardId = await createBoard(nodeA.url, cookies.designer, 'Review across nodes')
+    const controller = new AbortController()
+    const res = await fetch(`${nodeB.url}/api/boards/${boardId}/review-events`, { headers: { cookie: cookies.designer }, signal: controller.signal })
+    expect(res.status).toBe(200)
+    const reader = res.body!.getReader()
+    let text = ''
+    const read = (async () => {
+      while (!text.includes('event: review')) {
+        const { value, done } = await reader.read()
+        if (done) break
+        text += new TextDecoder().decode(value)
+      }
+    })()
+    await waitUntil(() => text.includes('event: ready'), 5000, 'ready')
+    const posted = await fetch(`${nodeA.url}/api/boards/${boardId}/comments`, {
+      method: 'POST', headers: { 'content-type': 'application/json', cookie: cookies.reviewer, origin: nodeA.url }, body: JSON.stringify({ body: 'Seen on the other node?' }),
+    })
+    expect(posted.status).toBe(201)
+    const { id } = await posted.json() as { id: string }
+    await Promise.race([read, new Promise(r => setTimeout(r, 5000))])
+    controller.abort()
+    expect(text).toContain('event: review')
+    expect(text).toContain(id)
+  })
+
   it('counts failed sign-ins across nodes: ten in all, wherever they land', async () => {
     const email = `target-${Date.now()}@race.example`
     const made = await fetch(`${nodeA.url}/api/auth/signup`, {
