@@ -1,7 +1,8 @@
 // Memory under hostile traffic on the built server: (1) a reviewer who never reads sends 150
 // four-byte sync-step-1 frames on a board of about 3.6 MB (each asks for the whole document);
-// (2) later: a 200 MB chunked JSON body. Reports the server's resident memory (VmRSS) before and
+// (2) a 200 MB chunked JSON body to the sign-in route. Reports the server's resident memory (VmRSS) before and
 // its peak over the following seconds, and how the server ended the connection.
+import { request } from 'node:http'
 import { pathToFileURL } from 'node:url'
 import { WebSocket } from 'ws'
 import { startServer } from '../tests/support/server'
@@ -74,17 +75,65 @@ export async function runSocketFlood(frames = 150): Promise<FloodResult> {
   }
 }
 
+export interface BodyResult { rssBeforeMiB: number, rssPeakMiB: number, status: number | string, sentMiB: number }
+
+/** Streams `totalMiB` of one JSON string, chunked (no Content-Length), to the sign-in route. */
+export async function runBigBody(totalMiB = 200): Promise<BodyResult> {
+  const server = await startServer()
+  try {
+    const pid = server.process.pid!
+    const before = rssKiB(pid)
+    const chunk = Buffer.alloc(1024 * 1024, 0x61)
+    let sent = 0
+    let peak = before
+    const sampler = setInterval(() => { peak = Math.max(peak, rssKiB(pid)) }, 25)
+    const status = await new Promise<number | string>((resolve) => {
+      const req = request(`${server.url}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json', 'transfer-encoding': 'chunked' } }, (res) => {
+        res.resume()
+        resolve(res.statusCode!)
+        req.destroy()
+      })
+      req.on('error', error => resolve(`connection ended (${(error as NodeJS.ErrnoException).code ?? error.message})`))
+      req.write('{"email":"')
+      const pump = () => {
+        while (sent < totalMiB) {
+          sent++
+          if (!req.write(chunk)) return void req.once('drain', pump)
+        }
+        req.end('","password":"x"}')
+      }
+      pump()
+    })
+    await new Promise(r => setTimeout(r, 1000))
+    clearInterval(sampler)
+    return { rssBeforeMiB: before / 1024, rssPeakMiB: peak / 1024, status, sentMiB: sent }
+  }
+  finally {
+    await server.stop()
+  }
+}
+
+export function printBodyBench(body: BodyResult): void {
+  console.log(`flood: a ${body.sentMiB} MiB chunked JSON body to /api/auth/login: server RSS ${body.rssBeforeMiB.toFixed(0)} -> peak ${body.rssPeakMiB.toFixed(0)} MiB `
+    + `(+${(body.rssPeakMiB - body.rssBeforeMiB).toFixed(0)} MiB), answered ${body.status}`)
+}
+
 export function printFloodBench(socket: FloodResult): void {
   console.log(`flood: 150 sync-step-1 frames from a non-reading reviewer on a ${(BIG_KEYS * BIG_CHARS / 1e6).toFixed(1)} MB board: `
     + `server RSS ${socket.rssBeforeMiB.toFixed(0)} -> peak ${socket.rssPeakMiB.toFixed(0)} MiB (+${(socket.rssPeakMiB - socket.rssBeforeMiB).toFixed(0)} MiB), ${socket.closedBy}`)
 }
 
 export async function runFloodBench() {
-  return runSocketFlood()
+  return { socket: await runSocketFlood(), body: await runBigBody() }
+}
+
+export function printFloodBenches(result: Awaited<ReturnType<typeof runFloodBench>>): void {
+  printFloodBench(result.socket)
+  printBodyBench(result.body)
 }
 
 if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
-  runFloodBench().then(printFloodBench).catch((error) => {
+  runFloodBench().then(printFloodBenches).catch((error) => {
     console.error(error)
     process.exit(1)
   })

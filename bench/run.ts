@@ -48,7 +48,7 @@ export const BENCH_MODULES: BenchModule[] = [
     needs: 'a build (bash scripts/build.sh)',
     run: async () => {
       const m = await import('./flood')
-      m.printFloodBench(await m.runFloodBench())
+      m.printFloodBenches(await m.runFloodBench())
     },
   },
   {
