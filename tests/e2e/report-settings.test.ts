@@ -56,8 +56,10 @@ describe('the printed report follows the board settings', () => {
     // New blank boards carry the typical default Q; the report says which Q the figures assume.
     expect(await ladder.innerText()).toMatch(/default Q L 40 \/ C 200/)
 
-    const volts = Number((await page.locator('[data-testid="report-part"] td').nth(4).innerText()).replace(/[^\d.]/g, ''))
+    // The cell reads "RMS V / peak V": the RMS against the hand divider, the peak √2 times it (a sine).
+    const [volts, peak] = ((await page.locator('[data-testid="report-part"] td').nth(4).innerText()).match(/\d+(\.\d+)?/g) ?? []).map(Number)
     expect(Math.abs(volts - expectedCapVoltsRms(200)) / expectedCapVoltsRms(200)).toBeLessThan(0.01)
+    expect(Math.abs(peak - Math.SQRT2 * volts) / (Math.SQRT2 * volts)).toBeLessThan(0.01)
 
     const warning = page.locator('[data-testid="report-over-rating"]')
     await warning.waitFor()
