@@ -5,6 +5,13 @@ import { WebsocketProvider } from 'y-websocket'
 import { listenForAccessNotice, reconnectWithJitter } from '#shared/live/provider'
 import { RECONNECT_MAX_MS } from '#shared/live/backoff'
 
+/** The part of the page's board store the connection drives: read-only until the server allows
+ * editing, and the drag draft shown to colleagues. Passed in: composables never import stores. */
+export interface LiveBoardTarget {
+  readOnly: boolean
+  readonly draft: { elementId: string, value: number } | null
+}
+
 export type LiveStatus = 'offline' | 'connecting' | 'connected' | 'synced' | 'refused'
 
 const status = ref<LiveStatus>('offline')
@@ -25,11 +32,10 @@ function stop() {
   status.value = 'offline'
 }
 
-function start(boardId: string) {
+function start(boardId: string, store: LiveBoardTarget) {
   stop()
   const doc = useBoardDoc().doc
   if (!doc) throw new Error('Open the board document before connecting it')
-  const store = useBoardStore()
   // The safe side until the server's access notice arrives.
   store.readOnly = true
   const next = new WebsocketProvider(liveServerUrl(), encodeURIComponent(boardId), doc, {

@@ -1,11 +1,8 @@
-// Keeps the measured files the open board names (its measured load, its blocks) fetched into the
-// measured store, so the board store's results can use them.
+// Keeps the measured files the open board names (its measured load, its blocks) fetched, so the
+// board's results can use them. The caller passes the ids to follow and the fetcher (the board and
+// measured stores): composables sit below stores and never import them.
 import { watch } from 'vue'
-import { useBoardStore } from '~/stores/board'
-import { useMeasuredStore } from '~/stores/measured'
 
-export function useMeasuredSync() {
-  const board = useBoardStore()
-  const measured = useMeasuredStore()
-  watch(() => board.measuredIds, (ids) => { if (import.meta.client && ids.length) void measured.ensure(ids) }, { immediate: true })
+export function useMeasuredSync(ids: () => readonly string[], ensure: (ids: readonly string[]) => unknown) {
+  watch(ids, (next) => { if (import.meta.client && next.length) void ensure(next) }, { immediate: true })
 }

@@ -1,6 +1,6 @@
 // The client-side owner of the Monte Carlo worker: starts a run, follows its progress, cancels it,
-// and keeps the last result (yield, histogram) here and its cloud of end points in the board store
-// for the chart. One worker and one run at a time for the page; state is shared by every caller.
+// and keeps the last result (yield, histogram) and its cloud of end points here; the board store
+// exposes the cloud to the chart (composables sit below stores and never import them). One worker and one run at a time for the page; state is shared by every caller.
 //
 // Test hook (for the browser test and the benchmark): while a board page is open,
 // `window.__gammaboardMonteCarlo.run(input, sliceMs?)` runs `input` (a MonteCarloInput) in the
@@ -9,7 +9,6 @@
 import { shallowRef, ref } from 'vue'
 import { histogramOf, type Complex, type Histogram, type MonteCarloInput } from '#shared/rf'
 import type { MonteCarloWorkerReply, MonteCarloWorkerRequest } from '../workers/montecarlo-protocol'
-import { useBoardStore } from '~/stores/board'
 
 export type MonteCarloStatus = 'idle' | 'running' | 'done' | 'cancelled' | 'error'
 
@@ -39,6 +38,8 @@ const completed = ref(0)
 const total = ref(0)
 const error = ref<string | null>(null)
 const summary = shallowRef<MonteCarloSummary | null>(null)
+/** The last run's end points (the chart's cloud); shallow: a few thousand plain points. */
+const cloudPoints = shallowRef<Complex[] | null>(null)
 
 let worker: Worker | null = null
 let runId = 0
@@ -79,7 +80,7 @@ function onReply(message: MonteCarloWorkerReply): void {
         key: runKey,
       }
       const cloud: Complex[] = Array.from(r.cloudRe, (re, i) => ({ re, im: r.cloudIm[i]! }))
-      useBoardStore().setCloud(cloud)
+      cloudPoints.value = cloud
       finish({ status: 'done', yield: r.yield, trials: r.trials, elapsedMs: message.elapsedMs })
       break
     }
@@ -146,7 +147,7 @@ function clear(): void {
   summary.value = null
   status.value = 'idle'
   completed.value = 0
-  useBoardStore().setCloud(null)
+  cloudPoints.value = null
 }
 
 function installTestHook(): void {
@@ -155,10 +156,10 @@ function installTestHook(): void {
     run: (input: MonteCarloInput, sliceMs?: number) => start(input, 'test-hook', sliceMs),
     cancel,
     progress: () => ({ status: status.value, completed: completed.value, total: total.value }),
-    cloud: () => useBoardStore().cloud,
+    cloud: () => cloudPoints.value,
   }
 }
 
 export function useMonteCarlo() {
-  return { status, completed, total, error, summary, start, cancel, clear, installTestHook }
+  return { status, completed, total, error, summary, cloud: cloudPoints, start, cancel, clear, installTestHook }
 }

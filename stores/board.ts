@@ -21,15 +21,14 @@ import { settingsEntry, terminalEntry, type SettingsField, type TerminalField } 
 import { matchSolutions } from '#shared/board/solutions'
 import { partRows } from '#shared/board/parts'
 import { useBoardDoc } from '~/composables/useBoardDoc'
+import { useMonteCarlo } from '~/composables/useMonteCarlo'
 import { useMeasuredStore } from '~/stores/measured'
 import { useAmplifierStore } from '~/stores/amplifier'
 import { measuredCoverage, measuredPartUploadIds, measuredUploadIds, splitByCoverage } from '#shared/board/measured'
 
-export interface BoardRecordInput extends BoardContent {
-  id: string
-  name: string
-  workspace?: string
-}
+import type { BoardRecordInput } from '#shared/types/api'
+
+export type { BoardRecordInput }
 
 export interface DragDraft {
   elementId: string
@@ -71,7 +70,8 @@ export const useBoardStore = defineStore('board', () => {
   const lastError = ref<string | null>(null)
   /** Monte Carlo end points at the design frequency (impedances, Ω) for the chart; null when none. */
   // A shallow ref: up to a few hundred points replaced as a whole, never edited in place.
-  const cloud = shallowRef<Complex[] | null>(null)
+  // The Monte Carlo cloud lives with its run (useMonteCarlo); the store shows it to the chart.
+  const cloud = useMonteCarlo().cloud
   const loadedQ = ref(3)
 
   // ---- view toggles (the chart reads these) ----

@@ -1,14 +1,8 @@
 import { DataTypes, type Model, type Optional, type Sequelize } from 'sequelize'
 
-/** What a listing needs without decoding the Yjs state; rewritten whenever the state is saved. */
-export interface BoardSummary {
-  z0: number
-  frequencyHz: number
-  bandStartHz: number
-  bandStopHz: number
-  bandPoints: number
-  elementCount: number
-}
+import type { BoardListEntry, BoardSummary } from '../../shared/types/api'
+
+export type { BoardListEntry, BoardListItem, BoardPresence, BoardSummary } from '../../shared/types/api'
 
 export interface BoardRow {
   id: string
@@ -36,11 +30,6 @@ export function defineBoard(sequelize: Sequelize) {
     updatedAt: DataTypes.DATE,
   }, { tableName: 'boards', underscored: true })
 }
-
-export interface BoardListEntry extends BoardSummary { id: string, name: string, updatedAt: string }
-/** Someone who has a board open now (server-stamped name and colour; never stored). */
-export interface BoardPresence { userId: number, name: string, colour: string }
-export type BoardListItem = BoardListEntry & { present: BoardPresence[] }
 
 export function serializeBoardListEntry(board: BoardRow): BoardListEntry {
   const summary = JSON.parse(board.summary) as BoardSummary

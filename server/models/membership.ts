@@ -30,7 +30,9 @@ export function defineMembership(sequelize: Sequelize) {
   }, { tableName: 'memberships', underscored: true })
 }
 
-export interface PublicMember { userId: number, name: string, email: string, role: Role, since: string }
+import type { PublicMember } from '../../shared/types/api'
+
+export type { PublicMember } from '../../shared/types/api'
 
 export function serializeMember(membership: MembershipRow, user: { name: string, email: string }): PublicMember {
   return { userId: membership.userId, name: user.name, email: user.email, role: membership.role, since: membership.createdAt.toISOString() }

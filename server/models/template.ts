@@ -1,5 +1,6 @@
 import { DataTypes, type Model, type Optional, type Sequelize } from 'sequelize'
 import type { BoardContent } from '../../shared/board/schema'
+import type { PublicTemplate } from '../../shared/types/api'
 
 export interface TemplateRow {
   id: string
@@ -29,7 +30,7 @@ export function defineTemplate(sequelize: Sequelize) {
   }, { tableName: 'templates', underscored: true })
 }
 
-export function serializeTemplate(template: TemplateRow, publisher: { id: number, name: string } | null) {
+export function serializeTemplate(template: TemplateRow, publisher: { id: number, name: string } | null): PublicTemplate {
   const content = JSON.parse(template.summary) as BoardContent
   return {
     id: template.id,
@@ -41,4 +42,4 @@ export function serializeTemplate(template: TemplateRow, publisher: { id: number
     elements: content.elements,
   }
 }
-export type PublicTemplate = ReturnType<typeof serializeTemplate>
+export type { PublicTemplate } from '../../shared/types/api'
