@@ -4,9 +4,9 @@ import { beforeAll, beforeEach, describe, expect, inject, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { DEMO_USERS, signIn } from '../support/auth'
 import { ARTIFACTS, signedInPage, useChromium } from '../support/browser'
+import { demoTemplateId, newDemoBoard } from '../support/demo-boards'
 
 const baseUrl = inject('baseUrl')
-const TEMPLATE_NAME = '915 MHz chip antenna, series L + shunt C'
 const browser = useChromium()
 let page: Page
 let cookie = ''
@@ -16,14 +16,8 @@ let templateId = ''
  * A new board copied from the demo template (the soil node's antenna match, ant-l1 and ant-c1):
  * boards are live and stored, so each test that edits gets its own.
  */
-async function freshAntennaBoard(): Promise<string> {
-  const res = await fetch(`${baseUrl}/api/boards`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json', cookie },
-    body: JSON.stringify({ workspace: 'kestrel', name: 'Browser test board', templateId }),
-  })
-  expect(res.status).toBe(201)
-  return (await res.json()).id
+function freshAntennaBoard(): Promise<string> {
+  return newDemoBoard(baseUrl, cookie, 'Browser test board', templateId)
 }
 
 async function tileIds(): Promise<string[]> {
@@ -45,8 +39,7 @@ async function openBoard(id: string) {
 
 beforeAll(async () => {
   cookie = await signIn(baseUrl, DEMO_USERS.designer.email, DEMO_USERS.designer.password)
-  const templates = await (await fetch(`${baseUrl}/api/workspaces/kestrel/templates`, { headers: { cookie } })).json()
-  templateId = templates.find((t: { name: string }) => t.name === TEMPLATE_NAME).id
+  templateId = await demoTemplateId(baseUrl, cookie)
 })
 
 beforeEach(async () => {

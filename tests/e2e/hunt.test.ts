@@ -6,21 +6,15 @@ import { beforeAll, describe, expect, inject, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { DEMO_USERS, signIn } from '../support/auth'
 import { ARTIFACTS, signedInPage, useChromium } from '../support/browser'
+import { demoTemplateId, newDemoBoard } from '../support/demo-boards'
 
 const baseUrl = inject('baseUrl')
-const TEMPLATE_NAME = '915 MHz chip antenna, series L + shunt C'
 const browser = useChromium()
 let cookie = ''
 let templateId = ''
 
-async function freshAntennaBoard(): Promise<string> {
-  const res = await fetch(`${baseUrl}/api/boards`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json', cookie },
-    body: JSON.stringify({ workspace: 'kestrel', name: 'Hunt browser board', templateId }),
-  })
-  expect(res.status).toBe(201)
-  return (await res.json()).id
+function freshAntennaBoard(): Promise<string> {
+  return newDemoBoard(baseUrl, cookie, 'Hunt browser board', templateId)
 }
 
 async function openBoard(page: Page, id: string, readOnly = false) {
@@ -52,8 +46,7 @@ async function choose(page: Page, series: string, size: number) {
 
 beforeAll(async () => {
   cookie = await signIn(baseUrl, DEMO_USERS.designer.email, DEMO_USERS.designer.password)
-  const templates = await (await fetch(`${baseUrl}/api/workspaces/kestrel/templates`, { headers: { cookie } })).json()
-  templateId = templates.find((t: { name: string }) => t.name === TEMPLATE_NAME).id
+  templateId = await demoTemplateId(baseUrl, cookie)
 })
 
 describe('ladder hunt in the browser', () => {

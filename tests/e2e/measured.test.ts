@@ -9,23 +9,17 @@ import { mkdirSync } from 'node:fs'
 import path from 'node:path'
 import { DEMO_USERS, signIn, signInPage } from '../support/auth'
 import { launchChromium } from '../support/browser'
+import { demoTemplateId, newDemoBoard } from '../support/demo-boards'
 
 const baseUrl = inject('baseUrl')
 const ARTIFACTS = 'tests/artifacts'
 const TOUCHSTONE_DIR = path.resolve(REFERENCE_ROOT, 'touchstone')
-const TEMPLATE_NAME = '915 MHz chip antenna, series L + shunt C'
 const MEASURED_RGB = [0x6b, 0x3f, 0xa0] // shared/board/measured-style.ts MEASURED_HUE
 let browser: Browser
 let cookie = ''
 
-async function newBoard(name: string, templateId?: string): Promise<string> {
-  const res = await fetch(`${baseUrl}/api/boards`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json', cookie },
-    body: JSON.stringify({ workspace: 'kestrel', name, ...(templateId ? { templateId } : {}) }),
-  })
-  expect(res.status).toBe(201)
-  return (await res.json()).id
+function newBoard(name: string, templateId?: string): Promise<string> {
+  return newDemoBoard(baseUrl, cookie, name, templateId)
 }
 
 async function openPage(boardId: string): Promise<Page> {
@@ -67,8 +61,7 @@ afterAll(async () => { await browser?.close() })
 
 describe('a measured antenna on the board', () => {
   it('takes a .s1p from the file chooser as the load, draws it, plots the band, places markers and prints a report', async () => {
-    const templates = await (await fetch(`${baseUrl}/api/workspaces/kestrel/templates`, { headers: { cookie } })).json()
-    const templateId = templates.find((t: { name: string }) => t.name === TEMPLATE_NAME).id
+    const templateId = await demoTemplateId(baseUrl, cookie)
     const boardId = await newBoard('Measured antenna (browser test)', templateId)
     const page = await openPage(boardId)
     const worstBefore = await page.locator('[data-testid="band-worst-all"]').innerText()

@@ -5,9 +5,9 @@ import { beforeAll, beforeEach, describe, expect, inject, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { DEMO_USERS, signIn } from '../support/auth'
 import { ARTIFACTS, signedInPage, useChromium } from '../support/browser'
+import { demoTemplateId, newDemoBoard } from '../support/demo-boards'
 
 const baseUrl = inject('baseUrl')
-const TEMPLATE_NAME = '915 MHz chip antenna, series L + shunt C'
 const browser = useChromium()
 let page: Page
 let cookie = ''
@@ -99,15 +99,7 @@ describe('tolerance yield in the browser', () => {
 
 describe('stress at the source power in the browser', () => {
   it('flags a capacitor beyond its voltage rating in the parts list and on its tile', async () => {
-    const templates = await (await fetch(`${baseUrl}/api/workspaces/kestrel/templates`, { headers: { cookie } })).json()
-    const templateId = templates.find((t: { name: string }) => t.name === TEMPLATE_NAME).id
-    const res = await fetch(`${baseUrl}/api/boards`, {
-      method: 'POST',
-      headers: { 'content-type': 'application/json', cookie },
-      body: JSON.stringify({ workspace: 'kestrel', name: 'Stress browser test', templateId }),
-    })
-    expect(res.status).toBe(201)
-    await openBoard((await res.json()).id)
+    await openBoard(await newDemoBoard(baseUrl, cookie, 'Stress browser test', await demoTemplateId(baseUrl, cookie)))
     await page.locator('[data-testid="board"][data-read-only="false"]').waitFor()
     const power = page.locator('[data-testid="source-power"]')
     await power.fill('30 dBm')
