@@ -64,7 +64,7 @@ async function timeWorker(runs: number): Promise<NonNullable<MonteCarloBenchResu
   try {
     const page = await (await browser.newContext({ viewport: { width: 1440, height: 900 } })).newPage()
     await signInPage(page, server.url, DEMO_USERS.designer.email, DEMO_USERS.designer.password)
-    await page.goto(`${server.url}/boards/kestrel-915-antenna`)
+    await page.goto(`${server.url}/boards/brackwater-915-antenna`)
     await page.waitForFunction(() => !!(window as unknown as { __gammaboardMonteCarlo?: unknown }).__gammaboardMonteCarlo, null, { timeout: 30_000 })
     // No named helper functions inside evaluate: tsx would wrap them in a helper the page lacks.
     out = await page.evaluate(async ({ input, runs }) => {

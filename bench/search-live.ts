@@ -24,7 +24,7 @@ export async function runSearchLiveBench(runs = 5): Promise<SearchLiveBench> {
     try {
       const page = await (await browser.newContext({ viewport: { width: 1440, height: 900 } })).newPage()
       await signInPage(page, server.url, DEMO_USERS.designer.email, DEMO_USERS.designer.password)
-      await page.goto(`${server.url}/boards/kestrel-915-antenna`)
+      await page.goto(`${server.url}/boards/brackwater-915-antenna`)
       await page.waitForFunction(() => !!(window as unknown as { __gammaboardHunt?: unknown }).__gammaboardHunt, null, { timeout: 30_000 })
       worker = []
       for (const [label, q] of [['lossless', undefined], ['Q (L 40, C 200)', { L: 40, C: 200 }]] as const) {

@@ -37,7 +37,7 @@ export const useRealPartsStore = defineStore('realParts', () => {
   // ---- session choices ----
   const powerUnit = ref<PowerUnit>('dBm')
   const trials = ref(2000)
-  const seed = ref('kestrel')
+  const seed = ref('brackwater')
   const distribution = ref<ToleranceDistribution>('uniform')
   const snapSeries = ref<Series | null>(null)
 

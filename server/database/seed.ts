@@ -1,4 +1,4 @@
-// The demo team: Kestrel Field Sensors (invented), with one account per role, the demo boards and
+// The demo team: Brackwater Sensor Works (invented), with one account per role, the demo boards and
 // one published template. Runs only on a database without users, so a restart never duplicates it.
 import { randomUUID } from 'node:crypto'
 import type { Sequelize } from 'sequelize'
@@ -9,12 +9,12 @@ import { createUser, createWorkspace, setMembership } from './accounts'
 import { contentJson, createBoardRow, stateBytes } from './board-store'
 import { hashPasswordOffline } from './passwords'
 
-export const DEMO_WORKSPACE = { slug: 'kestrel', name: 'Kestrel Field Sensors' }
+export const DEMO_WORKSPACE = { slug: 'brackwater', name: 'Brackwater Sensor Works' }
 
 export const DEMO_ACCOUNTS: { name: string, email: string, password: string, role: Role }[] = [
-  { name: 'Mara Quell', email: 'mara@kestrel.example', password: 'kestrel-admin-demo', role: 'admin' },
-  { name: 'Tomas Reyes', email: 'tomas@kestrel.example', password: 'kestrel-designer-demo', role: 'designer' },
-  { name: 'Ines Halvorsen', email: 'ines@kestrel.example', password: 'kestrel-reviewer-demo', role: 'reviewer' },
+  { name: 'Mara Quell', email: 'mara@brackwater.example', password: 'brackwater-admin-demo', role: 'admin' },
+  { name: 'Tomas Reyes', email: 'tomas@brackwater.example', password: 'brackwater-designer-demo', role: 'designer' },
+  { name: 'Ines Halvorsen', email: 'ines@brackwater.example', password: 'brackwater-reviewer-demo', role: 'reviewer' },
 ]
 
 export const DEMO_TEMPLATE_NAME = '915 MHz chip antenna, series L + shunt C'

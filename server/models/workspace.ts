@@ -28,7 +28,7 @@ export function serializeWorkspace(workspace: WorkspaceRow): PublicWorkspace {
 /** Slugs: lower-case letters, digits and single hyphens, 2–64 characters. */
 export const SLUG_PATTERN = /^[a-z0-9](?:[a-z0-9]|-(?=[a-z0-9])){1,63}$/
 
-/** A slug made from a name ("Kestrel Field Sensors" → "kestrel-field-sensors"), not yet unique. */
+/** A slug made from a name ("Brackwater Sensor Works" → "brackwater-sensor-works"), not yet unique. */
 export function slugFromName(name: string): string {
   const slug = name.normalize('NFKD').toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 48).replace(/-+$/, '')
   return slug.length >= 2 ? slug : `team-${slug || 'x'}`

@@ -15,7 +15,7 @@ export function useDb(): Promise<Sequelize> {
     await underStartupLock(sequelize, async () => {
       await migrateToLatest(sequelize)
       if (process.env.GAMMABOARD_SEED === 'demo' && await seedDemo(sequelize)) {
-        console.info('[gammaboard] seeded the demo workspace "kestrel"')
+        console.info('[gammaboard] seeded the demo workspace "brackwater"')
       }
     })
     return sequelize

@@ -1,4 +1,4 @@
-// Demo boards of our invented scenario: Kestrel Field Sensors build soil-moisture nodes with a
+// Demo boards of our invented scenario: Brackwater Sensor Works build soil-moisture nodes with a
 // 915 MHz chip antenna and a gateway with a 2.4 GHz radio module. All values are invented for the
 // demo; they are plausible for such parts, not measurements of a real product.
 import type { BoardElement, BoardSettings } from './schema'
@@ -7,7 +7,7 @@ import { SCHEMA_VERSION } from './schema'
 export interface DemoBoard {
   id: string
   name: string
-  workspace: 'kestrel'
+  workspace: 'brackwater'
   settings: BoardSettings
   elements: BoardElement[]
 }
@@ -16,9 +16,9 @@ export const DEMO_BOARDS: DemoBoard[] = [
   {
     // The soil node's chip antenna as measured on the carrier board at 915 MHz, matched to the
     // 50 Ω radio with a series L and a shunt C. The C is still short of its final value.
-    id: 'kestrel-915-antenna',
+    id: 'brackwater-915-antenna',
     name: 'Soil node: 915 MHz chip antenna',
-    workspace: 'kestrel',
+    workspace: 'brackwater',
     settings: {
       schemaVersion: SCHEMA_VERSION,
       z0: 50,
@@ -39,9 +39,9 @@ export const DEMO_BOARDS: DemoBoard[] = [
   {
     // The gateway's 2.4 GHz module: its output (modelled as 25 Ω in series with 1.1 nH) delivered
     // into the 50 Ω antenna feed, through a short 50 Ω trace, a shunt L and a DC-blocking series C.
-    id: 'kestrel-gateway-2g4',
+    id: 'brackwater-gateway-2g4',
     name: 'Gateway: 2.4 GHz module output',
-    workspace: 'kestrel',
+    workspace: 'brackwater',
     settings: {
       schemaVersion: SCHEMA_VERSION,
       z0: 50,
@@ -63,9 +63,9 @@ export const DEMO_BOARDS: DemoBoard[] = [
   {
     // The 868 MHz variant's LNA input (modelled as 24 Ω in series with 2.55 pF) matched to the
     // output of the SAW filter ahead of it, about 42 + j9 Ω.
-    id: 'kestrel-868-lna',
+    id: 'brackwater-868-lna',
     name: 'EU node: 868 MHz LNA input',
-    workspace: 'kestrel',
+    workspace: 'brackwater',
     settings: {
       schemaVersion: SCHEMA_VERSION,
       z0: 50,

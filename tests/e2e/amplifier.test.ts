@@ -28,7 +28,7 @@ describe('an amplifier board', () => {
   it('takes a device .s2p, shows K and the noise figure, and solving the input to Γopt brings NF to near NFmin', async () => {
     const res = await fetch(`${baseUrl}/api/boards`, {
       method: 'POST', headers: { 'content-type': 'application/json', cookie, origin: baseUrl },
-      body: JSON.stringify({ workspace: 'kestrel', name: `Amplifier ${Date.now()}` }),
+      body: JSON.stringify({ workspace: 'brackwater', name: `Amplifier ${Date.now()}` }),
     })
     expect(res.status).toBe(201)
     const { id } = await res.json()

@@ -153,14 +153,14 @@ describe('the board page', () => {
   })
 
   it('opens the other demo boards, the key list and a terminal editor', async () => {
-    await openBoard('kestrel-gateway-2g4')
+    await openBoard('brackwater-gateway-2g4')
     expect(await page.locator('[data-testid="board-name"]').textContent()).toContain('2.4 GHz')
     expect((await tileIds()).length).toBeGreaterThan(0)
     await page.locator('body').click({ position: { x: 5, y: 300 } })
     await page.keyboard.press('?')
     await page.locator('[data-testid="board-help"]').waitFor()
     await page.screenshot({ path: `${ARTIFACTS}/board-gateway-help.png` })
-    await openBoard('kestrel-868-lna')
+    await openBoard('brackwater-868-lna')
     await page.locator('[data-testid="terminal-load"]').click()
     await page.locator('[data-testid="terminal-editor-load"]').waitFor()
     await page.screenshot({ path: `${ARTIFACTS}/board-lna-terminal.png` })

@@ -41,7 +41,7 @@ function gap(a: Gamma, b: Gamma): number {
 }
 
 async function openDemoBoard() {
-  await page.goto(`${baseUrl}/boards/kestrel-915-antenna`)
+  await page.goto(`${baseUrl}/boards/brackwater-915-antenna`)
   await page.locator('[data-testid="chart"] canvas').first().waitFor()
   await page.waitForFunction(() => {
     const hook = (window as unknown as { __gammaboardChart?: { handles: () => unknown[] } }).__gammaboardChart

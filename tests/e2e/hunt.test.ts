@@ -100,7 +100,7 @@ describe('ladder hunt in the browser', () => {
 
   it('lets a reviewer run it but not use a result', async () => {
     const page = await signedInPage(browser(), baseUrl, DEMO_USERS.reviewer, { width: 1440, height: 1000 })
-    await openBoard(page, 'kestrel-915-antenna', true)
+    await openBoard(page, 'brackwater-915-antenna', true)
     await choose(page, 'E12', 2)
     await page.locator('[data-testid="hunt-run"]').click()
     await page.locator('[data-testid="hunt-row"]').first().waitFor({ timeout: 30_000 })

@@ -18,9 +18,9 @@ beforeAll(async () => {
 
 describe('accepting an invitation in the browser', () => {
   it('refuses the wrong signed-in address, then signs up under the invited one and joins', async () => {
-    const invitedEmail = `newhire-${Date.now()}@kestrel.example`
+    const invitedEmail = `newhire-${Date.now()}@brackwater.example`
     const adminCookie = await signIn(baseUrl, DEMO_USERS.admin.email, DEMO_USERS.admin.password)
-    const sent = await fetch(`${baseUrl}/api/workspaces/kestrel/invitations`, {
+    const sent = await fetch(`${baseUrl}/api/workspaces/brackwater/invitations`, {
       method: 'POST', headers: { 'cookie': adminCookie, 'content-type': 'application/json' },
       body: JSON.stringify({ email: invitedEmail, role: 'reviewer' }),
     })
@@ -32,7 +32,7 @@ describe('accepting an invitation in the browser', () => {
     await page.goto(link)
     const refusal = page.locator('[data-testid="invite-other-address"]')
     await refusal.waitFor()
-    expect(await refusal.textContent()).toMatch(/sent to another address.*ines@kestrel\.example/s)
+    expect(await refusal.textContent()).toMatch(/sent to another address.*ines@brackwater\.example/s)
     expect(await page.locator('button', { hasText: 'Join the workspace' }).count()).toBe(0)
     await page.screenshot({ path: `${ARTIFACTS}/invite-other-address.png`, fullPage: true })
 
@@ -46,7 +46,7 @@ describe('accepting an invitation in the browser', () => {
     await page.fill('#field-password', 'a long enough password')
     await page.screenshot({ path: `${ARTIFACTS}/invite-signup.png`, fullPage: true })
     await page.locator('[data-testid="signup-form"] button[type="submit"]').click()
-    await page.waitForURL(`${baseUrl}/w/kestrel`)
+    await page.waitForURL(`${baseUrl}/w/brackwater`)
     expect(await page.locator('[data-testid="my-role"]').textContent()).toMatch(/reviewer/)
 
     // The invitation is used up.

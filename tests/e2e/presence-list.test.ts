@@ -19,7 +19,7 @@ describe('who is in each board, on the workspace home', () => {
     const boardId = await createBoard(baseUrl, designer, `Presence column ${Date.now()}`)
     const page = await (await browser().newContext({ viewport: { width: 1280, height: 900 } })).newPage()
     await signInPage(page, baseUrl, DEMO_USERS.reviewer.email, DEMO_USERS.reviewer.password)
-    await page.goto(`${baseUrl}/w/kestrel`)
+    await page.goto(`${baseUrl}/w/brackwater`)
     const cell = page.locator(`tr[data-board-id="${boardId}"] [data-testid="board-present"]`)
     await cell.waitFor()
     expect(await cell.locator('span[title]').count()).toBe(0)

@@ -20,7 +20,7 @@ beforeAll(async () => {
 
 describe('snapshots in the browser', () => {
   it('guards pages: a signed-out visitor is sent to sign in', async () => {
-    await page.goto(`${baseUrl}/w/kestrel`)
+    await page.goto(`${baseUrl}/w/brackwater`)
     await page.waitForURL(/\/login\?next=/)
     await page.locator('[data-testid="login-form"]').waitFor()
   })
@@ -40,7 +40,7 @@ describe('snapshots in the browser', () => {
     await page.fill('#field-email', DEMO_USERS.designer.email)
     await page.fill('#field-password', DEMO_USERS.designer.password)
     await page.locator('[data-testid="login-form"] button[type="submit"]').click()
-    await page.waitForURL(`${baseUrl}/w/kestrel`)
+    await page.waitForURL(`${baseUrl}/w/brackwater`)
     await page.locator('[data-testid="template-gallery"] svg polyline').first().waitFor()
     expect(await page.locator('[data-testid="boards-table"] tbody tr[data-board-id]').count()).toBeGreaterThanOrEqual(3)
     await page.screenshot({ path: `${ARTIFACTS}/workspace-home.png`, fullPage: true })
@@ -90,7 +90,7 @@ describe('snapshots in the browser', () => {
     const designerCookie = await signIn(baseUrl, DEMO_USERS.designer.email, DEMO_USERS.designer.password)
     const created = await fetch(`${baseUrl}/api/boards`, {
       method: 'POST', headers: { 'content-type': 'application/json', cookie: designerCookie },
-      body: JSON.stringify({ workspace: 'kestrel', name: `Share test ${Date.now()}` }),
+      body: JSON.stringify({ workspace: 'brackwater', name: `Share test ${Date.now()}` }),
     })
     const boardId = (await created.json()).id as string
     const label = `For review ${Date.now()}`
@@ -103,7 +103,7 @@ describe('snapshots in the browser', () => {
     await sharer.fill('#field-email', reviewer.email)
     await sharer.fill('#field-password', reviewer.password)
     await sharer.locator('[data-testid="login-form"] button[type="submit"]').click()
-    await sharer.waitForURL(`${baseUrl}/w/kestrel`)
+    await sharer.waitForURL(`${baseUrl}/w/brackwater`)
     await sharer.goto(`${baseUrl}/boards/${boardId}`)
     await sharer.locator('[data-testid="share-toggle"]').click()
     expect(await sharer.locator('[data-testid="share-link"]').inputValue()).toBe(`${baseUrl}/boards/${boardId}`)
@@ -119,7 +119,7 @@ describe('snapshots in the browser', () => {
     await sharer.screenshot({ path: `${ARTIFACTS}/share-panel.png` })
 
     const adminCookie = await signIn(baseUrl, DEMO_USERS.admin.email, DEMO_USERS.admin.password)
-    const outbox = await (await fetch(`${baseUrl}/api/workspaces/kestrel/outbox`, { headers: { cookie: adminCookie } })).json()
+    const outbox = await (await fetch(`${baseUrl}/api/workspaces/brackwater/outbox`, { headers: { cookie: adminCookie } })).json()
     const shared = outbox.find((m: { kind: string, to: string[], textBody?: string, text?: string }) =>
       m.kind === 'snapshot-shared' && m.to.includes(DEMO_USERS.designer.email) && JSON.stringify(m).includes(label))
     expect(shared).toBeTruthy()
@@ -132,13 +132,13 @@ describe('snapshots in the browser', () => {
     await admin.fill('#field-email', DEMO_USERS.admin.email)
     await admin.fill('#field-password', DEMO_USERS.admin.password)
     await admin.locator('[data-testid="login-form"] button[type="submit"]').click()
-    await admin.waitForURL(`${baseUrl}/w/kestrel`)
-    const invitee = `e2e-${Date.now()}@kestrel.example`
+    await admin.waitForURL(`${baseUrl}/w/brackwater`)
+    const invitee = `e2e-${Date.now()}@brackwater.example`
     await admin.fill('#field-inviteEmail', invitee)
     await admin.locator('[data-testid="invite-form"] button[type="submit"]').click()
     await admin.locator('[data-testid="invite-form"]', { hasText: `Invitation mailed to ${invitee}` }).waitFor()
     await admin.screenshot({ path: `${ARTIFACTS}/workspace-admin.png`, fullPage: true })
-    await admin.goto(`${baseUrl}/w/kestrel/outbox`)
+    await admin.goto(`${baseUrl}/w/brackwater/outbox`)
     await admin.locator('[data-testid="outbox-list"] li', { hasText: invitee }).first().waitFor()
     await admin.screenshot({ path: `${ARTIFACTS}/outbox.png` })
   })

@@ -51,7 +51,7 @@ beforeEach(async () => {
 
 describe('tolerance yield in the browser', () => {
   it('runs in the worker with rising progress, then shows the yield, the histogram and the cloud', async () => {
-    await openBoard('kestrel-915-antenna')
+    await openBoard('brackwater-915-antenna')
     await setTrials(200000)
     await page.locator('[data-testid="yield-run"]').click()
     const seen = await watchProgress()
@@ -75,7 +75,7 @@ describe('tolerance yield in the browser', () => {
   })
 
   it('cancels a long run within a slice and keeps the board usable', async () => {
-    await openBoard('kestrel-915-antenna')
+    await openBoard('brackwater-915-antenna')
     await setTrials(1000000)
     await page.locator('[data-testid="yield-run"]').click()
     const before = await watchProgress(1)

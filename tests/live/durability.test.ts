@@ -152,9 +152,9 @@ describe('live durability', () => {
     const server = await boot()
     const cookies = await signInAll(server.url)
     const boardId = await createBoard(server.url, cookies.designer, 'Role test')
-    const members = await (await fetch(`${server.url}/api/workspaces/kestrel/members`, { headers: { cookie: cookies.admin } })).json() as { userId: number, email: string }[]
-    const ines = members.find(m => m.email === 'ines@kestrel.example')!
-    const member = (init: RequestInit) => fetch(`${server.url}/api/workspaces/kestrel/members/${ines.userId}`, {
+    const members = await (await fetch(`${server.url}/api/workspaces/brackwater/members`, { headers: { cookie: cookies.admin } })).json() as { userId: number, email: string }[]
+    const ines = members.find(m => m.email === 'ines@brackwater.example')!
+    const member = (init: RequestInit) => fetch(`${server.url}/api/workspaces/brackwater/members/${ines.userId}`, {
       ...init, headers: { 'content-type': 'application/json', cookie: cookies.admin, origin: server.url },
     })
     const designer = pool.track(connectLive(server.url, boardId, { cookie: cookies.designer }))

@@ -7,7 +7,7 @@ export async function createBoard(baseUrl: string, cookie: string, name: string)
   const res = await fetch(`${baseUrl}/api/boards`, {
     method: 'POST',
     headers: { 'content-type': 'application/json', cookie },
-    body: JSON.stringify({ workspace: 'kestrel', name }),
+    body: JSON.stringify({ workspace: 'brackwater', name }),
   })
   if (res.status !== 201) throw new Error(`creating a board failed: ${res.status} ${await res.text()}`)
   return (await res.json() as { id: string }).id

@@ -13,7 +13,7 @@ afterEach(() => pool.destroyAll())
 
 type Listed = { id: string, present: { userId: number, name: string, colour: string }[] }
 async function presentIn(boardId: string): Promise<string[]> {
-  const res = await fetch(`${baseUrl}/api/boards?workspace=kestrel`, { headers: { cookie: cookies.reviewer } })
+  const res = await fetch(`${baseUrl}/api/boards?workspace=brackwater`, { headers: { cookie: cookies.reviewer } })
   expect(res.status).toBe(200)
   const board = (await res.json() as Listed[]).find(b => b.id === boardId)!
   return board.present.map(p => p.name).sort()

@@ -88,7 +88,7 @@ describe('two nodes on one database and one Redis', () => {
   it('lists who is in a board on every node\'s board list', async () => {
     const boardId = await createBoard(nodeA.url, cookies.designer, 'In it now across nodes')
     const namesOn = async (node: RunningServer) => {
-      const res = await fetch(`${node.url}/api/boards?workspace=kestrel`, { headers: { cookie: cookies.reviewer } })
+      const res = await fetch(`${node.url}/api/boards?workspace=brackwater`, { headers: { cookie: cookies.reviewer } })
       const board = (await res.json() as { id: string, present: { name: string }[] }[]).find(b => b.id === boardId)!
       return board.present.map(p => p.name).sort()
     }
@@ -144,9 +144,9 @@ describe('two nodes on one database and one Redis', () => {
 
   it('closes a member\'s sockets on the other node when an admin on this one changes their role or removes them', async () => {
     const boardId = await createBoard(nodeA.url, cookies.designer, 'Member changes across nodes')
-    const members = await (await fetch(`${nodeA.url}/api/workspaces/kestrel/members`, { headers: { cookie: cookies.admin } })).json() as { userId: number, email: string }[]
+    const members = await (await fetch(`${nodeA.url}/api/workspaces/brackwater/members`, { headers: { cookie: cookies.admin } })).json() as { userId: number, email: string }[]
     const ines = members.find(m => m.email === DEMO_USERS.reviewer.email)!
-    const member = (init: RequestInit) => fetch(`${nodeA.url}/api/workspaces/kestrel/members/${ines.userId}`, {
+    const member = (init: RequestInit) => fetch(`${nodeA.url}/api/workspaces/brackwater/members/${ines.userId}`, {
       ...init, headers: { 'content-type': 'application/json', cookie: cookies.admin, origin: nodeA.url },
     })
     const designer = pool.track(connectLive(nodeA.url, boardId, { cookie: cookies.designer }))

@@ -42,27 +42,27 @@ const CASES: Case[] = [
   // workspaces
   { name: 'workspace: malformed slug', method: 'GET', path: () => '/api/workspaces/Not%20A%20Slug!', status: 400 },
   { name: 'workspace: unknown slug', method: 'GET', path: () => '/api/workspaces/no-such-team', status: 404 },
-  { name: 'invite: unknown role', method: 'POST', path: () => '/api/workspaces/kestrel/invitations', body: { email: 'x@y.example', role: 'boss' }, status: 400 },
-  { name: 'invite: missing email', method: 'POST', path: () => '/api/workspaces/kestrel/invitations', body: { role: 'reviewer' }, status: 400 },
-  { name: 'invite: malformed JSON', method: 'POST', path: () => '/api/workspaces/kestrel/invitations', raw: MALFORMED, status: 400 },
-  { name: 'invite: already a member', method: 'POST', path: () => '/api/workspaces/kestrel/invitations', body: { email: DEMO_USERS.designer.email, role: 'admin' }, status: 422 },
+  { name: 'invite: unknown role', method: 'POST', path: () => '/api/workspaces/brackwater/invitations', body: { email: 'x@y.example', role: 'boss' }, status: 400 },
+  { name: 'invite: missing email', method: 'POST', path: () => '/api/workspaces/brackwater/invitations', body: { role: 'reviewer' }, status: 400 },
+  { name: 'invite: malformed JSON', method: 'POST', path: () => '/api/workspaces/brackwater/invitations', raw: MALFORMED, status: 400 },
+  { name: 'invite: already a member', method: 'POST', path: () => '/api/workspaces/brackwater/invitations', body: { email: DEMO_USERS.designer.email, role: 'admin' }, status: 422 },
   { name: 'invite: unknown workspace', method: 'POST', path: () => '/api/workspaces/no-such-team/invitations', body: { email: 'x@y.example', role: 'reviewer' }, status: 404 },
-  { name: 'member role: unknown role', method: 'PATCH', path: () => `/api/workspaces/kestrel/members/${adminId}`, body: { role: 'boss' }, status: 400 },
-  { name: 'member role: user id not a number', method: 'PATCH', path: () => '/api/workspaces/kestrel/members/abc', body: { role: 'reviewer' }, status: 400 },
-  { name: 'member role: unknown member', method: 'PATCH', path: () => '/api/workspaces/kestrel/members/999999', body: { role: 'reviewer' }, status: 404 },
-  { name: 'member role: the last admin demoted', method: 'PATCH', path: () => `/api/workspaces/kestrel/members/${adminId}`, body: { role: 'designer' }, status: 422 },
-  { name: 'member removal: user id not a number', method: 'DELETE', path: () => '/api/workspaces/kestrel/members/abc', status: 400 },
-  { name: 'member removal: the last admin leaves', method: 'DELETE', path: () => `/api/workspaces/kestrel/members/${adminId}`, status: 422 },
+  { name: 'member role: unknown role', method: 'PATCH', path: () => `/api/workspaces/brackwater/members/${adminId}`, body: { role: 'boss' }, status: 400 },
+  { name: 'member role: user id not a number', method: 'PATCH', path: () => '/api/workspaces/brackwater/members/abc', body: { role: 'reviewer' }, status: 400 },
+  { name: 'member role: unknown member', method: 'PATCH', path: () => '/api/workspaces/brackwater/members/999999', body: { role: 'reviewer' }, status: 404 },
+  { name: 'member role: the last admin demoted', method: 'PATCH', path: () => `/api/workspaces/brackwater/members/${adminId}`, body: { role: 'designer' }, status: 422 },
+  { name: 'member removal: user id not a number', method: 'DELETE', path: () => '/api/workspaces/brackwater/members/abc', status: 400 },
+  { name: 'member removal: the last admin leaves', method: 'DELETE', path: () => `/api/workspaces/brackwater/members/${adminId}`, status: 422 },
   { name: 'templates: unknown workspace', method: 'GET', path: () => '/api/workspaces/no-such-team/templates', status: 404 },
   { name: 'outbox: unknown workspace', method: 'GET', path: () => '/api/workspaces/no-such-team/outbox', status: 404 },
   // boards
   { name: 'board list: missing workspace', method: 'GET', path: () => '/api/boards', status: 400 },
   { name: 'board list: unknown workspace', method: 'GET', path: () => '/api/boards?workspace=no-such-team', status: 404 },
-  { name: 'new board: missing name', method: 'POST', path: () => '/api/boards', body: { workspace: 'kestrel' }, status: 400 },
-  { name: 'new board: name of 121 characters', method: 'POST', path: () => '/api/boards', body: { workspace: 'kestrel', name: long(121) }, status: 400 },
-  { name: 'new board: name of the wrong type', method: 'POST', path: () => '/api/boards', body: { workspace: 'kestrel', name: 7 }, status: 400 },
-  { name: 'new board: malformed template id', method: 'POST', path: () => '/api/boards', body: { workspace: 'kestrel', name: 'B', templateId: 'nope' }, status: 400 },
-  { name: 'new board: unknown template', method: 'POST', path: () => '/api/boards', body: { workspace: 'kestrel', name: 'B', templateId: randomUUID() }, status: 404 },
+  { name: 'new board: missing name', method: 'POST', path: () => '/api/boards', body: { workspace: 'brackwater' }, status: 400 },
+  { name: 'new board: name of 121 characters', method: 'POST', path: () => '/api/boards', body: { workspace: 'brackwater', name: long(121) }, status: 400 },
+  { name: 'new board: name of the wrong type', method: 'POST', path: () => '/api/boards', body: { workspace: 'brackwater', name: 7 }, status: 400 },
+  { name: 'new board: malformed template id', method: 'POST', path: () => '/api/boards', body: { workspace: 'brackwater', name: 'B', templateId: 'nope' }, status: 400 },
+  { name: 'new board: unknown template', method: 'POST', path: () => '/api/boards', body: { workspace: 'brackwater', name: 'B', templateId: randomUUID() }, status: 404 },
   { name: 'new board: unknown workspace', method: 'POST', path: () => '/api/boards', body: { workspace: 'no-such-team', name: 'B' }, status: 404 },
   { name: 'new board: malformed JSON', method: 'POST', path: () => '/api/boards', raw: MALFORMED, status: 400 },
   { name: 'board: unknown id', method: 'GET', path: () => '/api/boards/no-such-board', status: 404 },
@@ -108,7 +108,7 @@ describe('bad input', () => {
     adminId = (await me.json()).user.id
     const board = await fetch(`${baseUrl}/api/boards`, {
       method: 'POST', headers: { cookie, 'content-type': 'application/json' },
-      body: JSON.stringify({ workspace: 'kestrel', name: 'Bad input target' }),
+      body: JSON.stringify({ workspace: 'brackwater', name: 'Bad input target' }),
     })
     boardId = (await board.json()).id
     const snap = await fetch(`${baseUrl}/api/boards/${boardId}/snapshots`, {
@@ -127,7 +127,7 @@ describe('bad input', () => {
   })
 
   it('names the offending field in a validation message', async () => {
-    const { json } = await send({ name: '', method: 'POST', path: () => '/api/boards', body: { workspace: 'kestrel', name: long(121) }, status: 400 })
+    const { json } = await send({ name: '', method: 'POST', path: () => '/api/boards', body: { workspace: 'brackwater', name: long(121) }, status: 400 })
     expect(json.message).toMatch(/name: must be at most 120 characters/)
   })
 
@@ -135,7 +135,7 @@ describe('bad input', () => {
     const before = await rowCounts(dbFile)
     const res = await fetch(`${baseUrl}/api/boards`, {
       method: 'POST', headers: { cookie, 'content-type': 'application/json' },
-      body: JSON.stringify({ workspace: 'kestrel', name: long(120) }),
+      body: JSON.stringify({ workspace: 'brackwater', name: long(120) }),
     })
     expect(res.status).toBe(201)
     expect((await res.json()).name).toBe(long(120))

@@ -17,7 +17,7 @@ describe('GET /api/boards/:id', () => {
     const body = await res.json()
     const demo = DEMO_BOARDS.find(b => b.id === id)!
     expect(body.id).toBe(id)
-    expect(body.workspace).toBe('kestrel')
+    expect(body.workspace).toBe('brackwater')
     expect(body.name).toBe(demo.name)
     expect(body.settings).toEqual(demo.settings)
     expect(body.elements).toEqual(demo.elements)
@@ -46,7 +46,7 @@ describe('default Q of new boards', () => {
   })
   async function create(body: Record<string, unknown>) {
     const res = await fetch(`${baseUrl}/api/boards`, {
-      method: 'POST', headers: { ...headers, 'content-type': 'application/json' }, body: JSON.stringify({ workspace: 'kestrel', ...body }),
+      method: 'POST', headers: { ...headers, 'content-type': 'application/json' }, body: JSON.stringify({ workspace: 'brackwater', ...body }),
     })
     expect(res.status).toBe(201)
     const created = await res.json()
@@ -58,7 +58,7 @@ describe('default Q of new boards', () => {
   })
 
   it('a board from a template keeps the template\'s settings (the seeded one has no default Q)', async () => {
-    const templates = await (await fetch(`${baseUrl}/api/workspaces/kestrel/templates`, { headers })).json() as { id: string, name: string }[]
+    const templates = await (await fetch(`${baseUrl}/api/workspaces/brackwater/templates`, { headers })).json() as { id: string, name: string }[]
     // The template the demo seed publishes from the first demo board.
     const seeded = templates.find(t => t.name === '915 MHz chip antenna, series L + shunt C')!
     const settings = await create({ name: 'From the seeded template', templateId: seeded.id })

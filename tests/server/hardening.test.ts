@@ -11,7 +11,7 @@ let server: RunningServer
 let api: ReturnType<typeof apiClient>
 
 beforeAll(async () => {
-  server = await startServer({ env: { GAMMABOARD_PUBLIC_URL: 'https://boards.kestrel.example' } })
+  server = await startServer({ env: { GAMMABOARD_PUBLIC_URL: 'https://boards.brackwater.example' } })
   api = apiClient(server.url)
 })
 afterAll(async () => {
@@ -33,14 +33,14 @@ describe('mailed links', () => {
     const forged = { 'host': 'attacker.example', 'x-forwarded-host': 'attacker.example', 'x-forwarded-proto': 'https' }
     expect((await api('POST', '/api/auth/forgot', { body: { email: user.email }, headers: forged })).status).toBe(200)
     const [reset] = await waitForMails(server.dbFile, user.email)
-    expect(linkIn(reset!.text_body, '/reset/')).toMatch(/^https:\/\/boards\.kestrel\.example\/reset\//)
+    expect(linkIn(reset!.text_body, '/reset/')).toMatch(/^https:\/\/boards\.brackwater\.example\/reset\//)
     expect(reset!.text_body + reset!.html_body).not.toContain('attacker.example')
 
     const invitee = uniqueEmail('invitee')
     const invited = await api('POST', `/api/workspaces/${user.workspace}/invitations`, { cookie: user.cookie, body: { email: invitee, role: 'reviewer' }, headers: forged })
     expect(invited.status).toBe(201)
     const [invitation] = await mailsTo(server.dbFile, invitee)
-    expect(linkIn(invitation!.text_body, '/invite/')).toMatch(/^https:\/\/boards\.kestrel\.example\/invite\//)
+    expect(linkIn(invitation!.text_body, '/invite/')).toMatch(/^https:\/\/boards\.brackwater\.example\/invite\//)
   })
 
   it('without GAMMABOARD_PUBLIC_URL the server refuses to mail links, alike for every address, and says what to set', async () => {
@@ -117,7 +117,7 @@ describe('forgotten password', () => {
 
 describe('odd inputs answer 4xx, never 500', () => {
   it('a NUL in the sign-in e-mail is a 400', async () => {
-    const res = await postFrom(server.url, '127.0.9.1', '/api/auth/login', { email: 'mara\u0000@kestrel.example', password: 'whatever it is' })
+    const res = await postFrom(server.url, '127.0.9.1', '/api/auth/login', { email: 'mara\u0000@brackwater.example', password: 'whatever it is' })
     expect(res).toBe(400)
   })
 

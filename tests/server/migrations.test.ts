@@ -63,7 +63,7 @@ describe('migrations', () => {
     expect((before as unknown[]).length).toBeGreaterThan(0)
     expect(await tableNames(sequelize)).toContain('parts')
     const [users] = await sequelize.query('SELECT email FROM users ORDER BY id')
-    expect((users as { email: string }[]).map(u => u.email)).toEqual(['mara@kestrel.example', 'tomas@kestrel.example', 'ines@kestrel.example'])
+    expect((users as { email: string }[]).map(u => u.email)).toEqual(['mara@brackwater.example', 'tomas@brackwater.example', 'ines@brackwater.example'])
   })
 
   it('roll back to nothing and forward again', async () => {

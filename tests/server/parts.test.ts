@@ -17,7 +17,7 @@ async function call(method: string, path: string, body?: unknown) {
   return { status: res.status, text, json: res.headers.get('content-type')?.includes('json') ? JSON.parse(text) : null }
 }
 
-const parts = async () => (await call('GET', '/api/workspaces/kestrel/parts')).json as { partId: string }[]
+const parts = async () => (await call('GET', '/api/workspaces/brackwater/parts')).json as { partId: string }[]
 
 beforeAll(async () => {
   cookie = await signIn(baseUrl, DEMO_USERS.designer.email, DEMO_USERS.designer.password)
@@ -26,12 +26,12 @@ beforeAll(async () => {
 describe('parts library', () => {
   it('adds a modelled part and lists it; a duplicate identifier is 409, a capacitor with srf is 400 naming the field', async () => {
     const part = { partId: `T-${stamp}-L1`, kind: 'L', value: 6.8e-9, tolerance: 0.02, q: 40, model: { q: [[1e8, 25], [1e9, 55]], srf: 4.2e9, padC: 0.1e-12 }, stocked: true }
-    const created = await call('POST', '/api/workspaces/kestrel/parts', part)
+    const created = await call('POST', '/api/workspaces/brackwater/parts', part)
     expect(created.status).toBe(201)
     expect(created.json).toMatchObject({ ...part })
     expect((await parts()).some(p => p.partId === part.partId)).toBe(true)
-    expect((await call('POST', '/api/workspaces/kestrel/parts', part)).status).toBe(409)
-    const bad = await call('POST', '/api/workspaces/kestrel/parts', { partId: `T-${stamp}-C9`, kind: 'C', value: 1e-12, model: { srf: 1e9 } })
+    expect((await call('POST', '/api/workspaces/brackwater/parts', part)).status).toBe(409)
+    const bad = await call('POST', '/api/workspaces/brackwater/parts', { partId: `T-${stamp}-C9`, kind: 'C', value: 1e-12, model: { srf: 1e9 } })
     expect(bad.status).toBe(400)
     expect(bad.json.message).toContain('model.srf')
   })
@@ -42,7 +42,7 @@ describe('parts library', () => {
       `T-${stamp}-A,L,3.3n,2,,100M:30;1G:58,6.1G,0.12p,yes,wound 0402`,
       `T-${stamp}-B,C,1.5p,,50,1G:400,,,no,`,
     ].join('\n')
-    const ok = await call('POST', '/api/workspaces/kestrel/parts/import', { csv: good })
+    const ok = await call('POST', '/api/workspaces/brackwater/parts/import', { csv: good })
     expect(ok.status).toBe(200)
     expect(ok.json).toEqual({ created: 2, updated: 0 })
     const cases: [string, number, string | null][] = [
@@ -56,7 +56,7 @@ describe('parts library', () => {
       [`part_id,kind\nT-${stamp}-X1,L\n`, 1, 'value'],
     ]
     for (const [csv, row, column] of cases) {
-      const res = await call('POST', '/api/workspaces/kestrel/parts/import', { csv })
+      const res = await call('POST', '/api/workspaces/brackwater/parts/import', { csv })
       expect(res.status, csv).toBe(422)
       expect(res.json.data, csv).toEqual({ row, column })
       expect(res.json.message).toContain(`row ${row}`)
@@ -66,14 +66,14 @@ describe('parts library', () => {
   })
 
   it('exports the library as CSV that imports back as the same parts', async () => {
-    const before = (await call('GET', '/api/workspaces/kestrel/parts')).json as Record<string, unknown>[]
-    const exported = await call('GET', '/api/workspaces/kestrel/parts/export')
+    const before = (await call('GET', '/api/workspaces/brackwater/parts')).json as Record<string, unknown>[]
+    const exported = await call('GET', '/api/workspaces/brackwater/parts/export')
     expect(exported.status).toBe(200)
     expect(exported.text.split('\n')[0]).toBe('part_id,kind,value,tolerance_pct,v_rating_v,i_rating_a,q,q_table,srf_hz,esl_h,pad_c_f,stocked,description')
-    const again = await call('POST', '/api/workspaces/kestrel/parts/import', { csv: exported.text })
+    const again = await call('POST', '/api/workspaces/brackwater/parts/import', { csv: exported.text })
     expect(again.status).toBe(200)
     expect(again.json.created).toBe(0)
-    const after = (await call('GET', '/api/workspaces/kestrel/parts')).json as Record<string, unknown>[]
+    const after = (await call('GET', '/api/workspaces/brackwater/parts')).json as Record<string, unknown>[]
     const strip = (rows: Record<string, unknown>[]) => rows.map(({ updatedAt: _u, ...rest }) => rest)
     const close = (a: unknown, b: unknown): boolean => typeof a === 'number' && typeof b === 'number'
       ? Math.abs(a - b) <= 1e-9 * Math.abs(b)

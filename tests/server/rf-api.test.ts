@@ -17,7 +17,7 @@ const MALFORMED_FILES = (JSON.parse(readFileSync(path.join(REFERENCE_DIR, 'expec
   { malformed: { file: string, error: { line: number | null, message: string } }[] }).malformed
 const MB = 1024 * 1024
 
-// Our invented scenario: the Kestrel soil node's 915 MHz chip antenna, matched on 50 Ω.
+// Our invented scenario: the Brackwater soil node's 915 MHz chip antenna, matched on 50 Ω.
 const ANTENNA: Complex = { re: 18, im: -32 }
 const LADDER: Element[] = [
   { kind: 'L', placement: 'series', value: 8.2e-9, q: 40 },
@@ -157,7 +157,7 @@ async function upload(fileName: string, text: string, field = 'file') {
  * as an answer arrives; resolves with the status and how many bytes had been sent by then.
  */
 function streamOversizeUpload(totalBytes: number): Promise<{ status: number, sentBytes: number, body: any }> {
-  const boundary = 'kestrel-boundary-7f3a'
+  const boundary = 'brackwater-boundary-7f3a'
   const head = Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="huge.s1p"\r\nContent-Type: application/octet-stream\r\n\r\n# MHz S RI R 50\r\n`)
   const row = Buffer.from('915 0.1 0.2\r\n'.repeat(80_000)).subarray(0, MB)
   return new Promise((resolve, reject) => {

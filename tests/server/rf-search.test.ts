@@ -13,7 +13,7 @@ import { clientPool, createBoard } from '../live/helpers'
 const baseUrl = inject('baseUrl')
 let cookie = ''
 
-// Our invented scenario: the Kestrel soil node's 915 MHz chip antenna across 902–928 MHz.
+// Our invented scenario: the Brackwater soil node's 915 MHz chip antenna across 902–928 MHz.
 const band = (n: number) => Array.from({ length: n }, (_, i) => 902e6 + (i * 26e6) / (n - 1))
 const INPUT: SearchInput = { z0: 50, frequencies: band(11), load: { re: 18, im: -32 }, series: 'E24', maxElements: 2, q: { L: 40, C: 200 } }
 

@@ -1,6 +1,6 @@
 // Every API route called as each kind of caller; each cell's status is asserted. Rows are the
-// routes, columns: anonymous, reviewer, designer (both of kestrel), admin of another workspace,
-// admin of kestrel. What a caller may not see answers 404; what their role may not do, 403.
+// routes, columns: anonymous, reviewer, designer (both of brackwater), admin of another workspace,
+// admin of brackwater. What a caller may not see answers 404; what their role may not do, 403.
 import { beforeAll, describe, expect, inject, it } from 'vitest'
 import { readFileSync } from 'node:fs'
 import path from 'node:path'
@@ -36,10 +36,10 @@ async function call(persona: Persona, method: string, path: string, body?: unkno
   return { status: res.status, json: text && res.headers.get('content-type')?.includes('json') ? JSON.parse(text) : text || null }
 }
 
-/** A new invitation to kestrel for an address nobody has; answers the token from the mailed link. */
+/** A new invitation to brackwater for an address nobody has; answers the token from the mailed link. */
 async function freshInvitation(): Promise<string> {
   const email = `invited-${++counter}-${Date.now()}@matrix.example`
-  const res = await call('admin', 'POST', '/api/workspaces/kestrel/invitations', { email, role: 'reviewer' })
+  const res = await call('admin', 'POST', '/api/workspaces/brackwater/invitations', { email, role: 'reviewer' })
   expect(res.status).toBe(201)
   const [mail] = await mailsTo(inject('dbFile'), email)
   return linkIn(mail!.text_body, '/invite/').split('/invite/')[1]!
@@ -53,7 +53,7 @@ async function newThread(persona: Persona): Promise<string> {
 }
 
 async function newBoard(name: string): Promise<string> {
-  const res = await call('admin', 'POST', '/api/boards', { workspace: 'kestrel', name })
+  const res = await call('admin', 'POST', '/api/boards', { workspace: 'brackwater', name })
   expect(res.status).toBe(201)
   return res.json.id
 }
@@ -73,7 +73,7 @@ beforeAll(async () => {
   boardId = await newBoard('Role matrix board')
   const snap = await call('admin', 'POST', `/api/boards/${boardId}/snapshots`, { label: 'matrix snapshot' })
   snapshotId = snap.json.id
-  const members = await call('admin', 'GET', '/api/workspaces/kestrel/members')
+  const members = await call('admin', 'GET', '/api/workspaces/brackwater/members')
   designerId = members.json.find((m: { email: string }) => m.email === DEMO_USERS.designer.email).userId
   designerSnapshotId = (await call('designer', 'POST', `/api/boards/${boardId}/snapshots`, { label: 'designer snapshot' })).json.id
   adminThreadId = await newThread('admin')
@@ -93,30 +93,30 @@ const row = (anonymous: number, reviewer: number, designer: number, otherAdmin: 
 const ROWS: Row[] = [
   { route: 'GET /api/auth/me', method: 'GET', request: () => ({ path: '/api/auth/me' }), expected: row(401, 200, 200, 200, 200) },
   { route: 'GET /api/workspaces', method: 'GET', request: () => ({ path: '/api/workspaces' }), expected: row(401, 200, 200, 200, 200) },
-  { route: 'GET /api/workspaces/:slug', method: 'GET', request: () => ({ path: '/api/workspaces/kestrel' }), expected: row(401, 200, 200, 404, 200) },
-  { route: 'GET /api/workspaces/:slug/members', method: 'GET', request: () => ({ path: '/api/workspaces/kestrel/members' }), expected: row(401, 200, 200, 404, 200) },
+  { route: 'GET /api/workspaces/:slug', method: 'GET', request: () => ({ path: '/api/workspaces/brackwater' }), expected: row(401, 200, 200, 404, 200) },
+  { route: 'GET /api/workspaces/:slug/members', method: 'GET', request: () => ({ path: '/api/workspaces/brackwater/members' }), expected: row(401, 200, 200, 404, 200) },
   {
     route: 'PATCH /api/workspaces/:slug/members/:userId', method: 'PATCH',
-    request: () => ({ path: `/api/workspaces/kestrel/members/${designerId}`, body: { role: 'designer' } }),
+    request: () => ({ path: `/api/workspaces/brackwater/members/${designerId}`, body: { role: 'designer' } }),
     expected: row(401, 403, 403, 404, 200),
   },
   {
     route: 'DELETE /api/workspaces/:slug/members/:userId (someone else, not a member)', method: 'DELETE',
-    request: () => ({ path: '/api/workspaces/kestrel/members/999999' }),
+    request: () => ({ path: '/api/workspaces/brackwater/members/999999' }),
     expected: row(401, 403, 403, 404, 404),
   },
-  { route: 'GET /api/workspaces/:slug/invitations', method: 'GET', request: () => ({ path: '/api/workspaces/kestrel/invitations' }), expected: row(401, 403, 403, 404, 200) },
+  { route: 'GET /api/workspaces/:slug/invitations', method: 'GET', request: () => ({ path: '/api/workspaces/brackwater/invitations' }), expected: row(401, 403, 403, 404, 200) },
   {
     route: 'POST /api/workspaces/:slug/invitations', method: 'POST',
-    request: () => ({ path: '/api/workspaces/kestrel/invitations', body: { email: `invitee-${++counter}@matrix.example`, role: 'reviewer' } }),
+    request: () => ({ path: '/api/workspaces/brackwater/invitations', body: { email: `invitee-${++counter}@matrix.example`, role: 'reviewer' } }),
     expected: row(401, 403, 403, 404, 201),
   },
-  { route: 'GET /api/workspaces/:slug/templates', method: 'GET', request: () => ({ path: '/api/workspaces/kestrel/templates' }), expected: row(401, 200, 200, 404, 200) },
-  { route: 'GET /api/workspaces/:slug/outbox', method: 'GET', request: () => ({ path: '/api/workspaces/kestrel/outbox' }), expected: row(401, 403, 403, 404, 200) },
-  { route: 'GET /api/boards?workspace=', method: 'GET', request: () => ({ path: '/api/boards?workspace=kestrel' }), expected: row(401, 200, 200, 404, 200) },
+  { route: 'GET /api/workspaces/:slug/templates', method: 'GET', request: () => ({ path: '/api/workspaces/brackwater/templates' }), expected: row(401, 200, 200, 404, 200) },
+  { route: 'GET /api/workspaces/:slug/outbox', method: 'GET', request: () => ({ path: '/api/workspaces/brackwater/outbox' }), expected: row(401, 403, 403, 404, 200) },
+  { route: 'GET /api/boards?workspace=', method: 'GET', request: () => ({ path: '/api/boards?workspace=brackwater' }), expected: row(401, 200, 200, 404, 200) },
   {
     route: 'POST /api/boards', method: 'POST',
-    request: () => ({ path: '/api/boards', body: { workspace: 'kestrel', name: `Matrix created ${++counter}` } }),
+    request: () => ({ path: '/api/boards', body: { workspace: 'brackwater', name: `Matrix created ${++counter}` } }),
     expected: row(401, 403, 201, 404, 201),
   },
   { route: 'GET /api/boards/:id', method: 'GET', request: () => ({ path: `/api/boards/${boardId}` }), expected: row(401, 200, 200, 404, 200) },
@@ -171,18 +171,18 @@ const ROWS: Row[] = [
     request: () => ({ path: '/api/invitations/unknown-token-unknown-token-0000/accept' }),
     expected: row(401, 404, 404, 404, 404),
   },
-  { route: 'GET /api/workspaces/:slug/parts', method: 'GET', request: () => ({ path: '/api/workspaces/kestrel/parts' }), expected: row(401, 200, 200, 404, 200) },
+  { route: 'GET /api/workspaces/:slug/parts', method: 'GET', request: () => ({ path: '/api/workspaces/brackwater/parts' }), expected: row(401, 200, 200, 404, 200) },
   {
     route: 'POST /api/workspaces/:slug/parts', method: 'POST',
-    request: () => ({ path: '/api/workspaces/kestrel/parts', body: { partId: `MATRIX-L-${++counter}`, kind: 'L', value: 3.3e-9, stocked: true } }),
+    request: () => ({ path: '/api/workspaces/brackwater/parts', body: { partId: `MATRIX-L-${++counter}`, kind: 'L', value: 3.3e-9, stocked: true } }),
     expected: row(401, 403, 201, 404, 201),
   },
   {
     route: 'PATCH /api/workspaces/:slug/parts/:partId', method: 'PATCH',
     request: async () => {
       const partId = `MATRIX-P-${++counter}`
-      expect((await call('admin', 'POST', '/api/workspaces/kestrel/parts', { partId, kind: 'C', value: 1e-12 })).status).toBe(201)
-      return { path: `/api/workspaces/kestrel/parts/${partId}`, body: { partId, kind: 'C', value: 1.2e-12, stocked: true } }
+      expect((await call('admin', 'POST', '/api/workspaces/brackwater/parts', { partId, kind: 'C', value: 1e-12 })).status).toBe(201)
+      return { path: `/api/workspaces/brackwater/parts/${partId}`, body: { partId, kind: 'C', value: 1.2e-12, stocked: true } }
     },
     expected: row(401, 403, 200, 404, 200),
   },
@@ -190,17 +190,17 @@ const ROWS: Row[] = [
     route: 'DELETE /api/workspaces/:slug/parts/:partId', method: 'DELETE',
     request: async () => {
       const partId = `MATRIX-D-${++counter}`
-      expect((await call('admin', 'POST', '/api/workspaces/kestrel/parts', { partId, kind: 'C', value: 1e-12 })).status).toBe(201)
-      return { path: `/api/workspaces/kestrel/parts/${partId}` }
+      expect((await call('admin', 'POST', '/api/workspaces/brackwater/parts', { partId, kind: 'C', value: 1e-12 })).status).toBe(201)
+      return { path: `/api/workspaces/brackwater/parts/${partId}` }
     },
     expected: row(401, 403, 200, 404, 200),
   },
   {
     route: 'POST /api/workspaces/:slug/parts/import', method: 'POST',
-    request: () => ({ path: '/api/workspaces/kestrel/parts/import', body: { csv: `part_id,kind,value\nMATRIX-I-${++counter},L,4.7n\n` } }),
+    request: () => ({ path: '/api/workspaces/brackwater/parts/import', body: { csv: `part_id,kind,value\nMATRIX-I-${++counter},L,4.7n\n` } }),
     expected: row(401, 403, 200, 404, 200),
   },
-  { route: 'GET /api/workspaces/:slug/parts/export', method: 'GET', request: () => ({ path: '/api/workspaces/kestrel/parts/export' }), expected: row(401, 200, 200, 404, 200) },
+  { route: 'GET /api/workspaces/:slug/parts/export', method: 'GET', request: () => ({ path: '/api/workspaces/brackwater/parts/export' }), expected: row(401, 200, 200, 404, 200) },
   {
     route: 'POST /api/rf/search',
     method: 'POST',

@@ -11,7 +11,7 @@ import { DEMO_USERS, signIn } from '../support/auth'
 const baseUrl = inject('baseUrl')
 const TOUCHSTONE_DIR = path.resolve(REFERENCE_ROOT, 'touchstone')
 const SOURCE = 'reference touchstone/expected.json (scikit-rf 0.15.4 and a strict reader)'
-const BOARD = 'kestrel-915-antenna'
+const BOARD = 'brackwater-915-antenna'
 const MAX_BYTES = 20 * 1024 * 1024
 
 type Pair = [number, number]

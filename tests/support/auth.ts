@@ -3,9 +3,9 @@
 import type { Page } from 'playwright-core'
 
 export const DEMO_USERS = {
-  admin: { email: 'mara@kestrel.example', password: 'kestrel-admin-demo', name: 'Mara Quell' },
-  designer: { email: 'tomas@kestrel.example', password: 'kestrel-designer-demo', name: 'Tomas Reyes' },
-  reviewer: { email: 'ines@kestrel.example', password: 'kestrel-reviewer-demo', name: 'Ines Halvorsen' },
+  admin: { email: 'mara@brackwater.example', password: 'brackwater-admin-demo', name: 'Mara Quell' },
+  designer: { email: 'tomas@brackwater.example', password: 'brackwater-designer-demo', name: 'Tomas Reyes' },
+  reviewer: { email: 'ines@brackwater.example', password: 'brackwater-reviewer-demo', name: 'Ines Halvorsen' },
 } as const
 
 /** The `name=value` pairs of a response's Set-Cookie headers, ready for a Cookie header. */

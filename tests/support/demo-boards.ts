@@ -6,7 +6,7 @@ export const ANTENNA_TEMPLATE = '915 MHz chip antenna, series L + shunt C'
 
 /** The id of the demo workspace's template called `name`. */
 export async function demoTemplateId(baseUrl: string, cookie: string, name = ANTENNA_TEMPLATE): Promise<string> {
-  const templates = await (await fetch(`${baseUrl}/api/workspaces/kestrel/templates`, { headers: { cookie } })).json()
+  const templates = await (await fetch(`${baseUrl}/api/workspaces/brackwater/templates`, { headers: { cookie } })).json()
   const found = templates.find((t: { name: string }) => t.name === name)
   expect(found, `demo template "${name}"`).toBeTruthy()
   return found.id
@@ -17,7 +17,7 @@ export async function newDemoBoard(baseUrl: string, cookie: string, name: string
   const res = await fetch(`${baseUrl}/api/boards`, {
     method: 'POST',
     headers: { 'content-type': 'application/json', cookie },
-    body: JSON.stringify({ workspace: 'kestrel', name, ...(templateId ? { templateId } : {}) }),
+    body: JSON.stringify({ workspace: 'brackwater', name, ...(templateId ? { templateId } : {}) }),
   })
   expect(res.status).toBe(201)
   return (await res.json()).id

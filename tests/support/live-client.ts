@@ -6,7 +6,7 @@ import { WebsocketProvider } from 'y-websocket'
 import { listenForAccessNotice } from '../../shared/live/provider'
 import type { AccessNotice } from '../../shared/live/protocol'
 
-export const DEMO_BOARD_ID = 'kestrel-915-antenna'
+export const DEMO_BOARD_ID = 'brackwater-915-antenna'
 
 // y-websocket adds one process 'exit' listener per provider in Node; tests and the benchmark open
 // hundreds on purpose.

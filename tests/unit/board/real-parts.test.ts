@@ -61,7 +61,7 @@ describe('typed real-part entries', () => {
 })
 
 describe('real-part fields in the board document', () => {
-  const antenna = DEMO_BOARDS.find(b => b.id === 'kestrel-915-antenna')!
+  const antenna = DEMO_BOARDS.find(b => b.id === 'brackwater-915-antenna')!
 
   it('an older document without defaultQ or sourcePowerW reads with no problem', () => {
     const snapshot = readBoard(createBoardDoc(antenna))

@@ -76,10 +76,10 @@ describe('BoardSettingsSchema', () => {
 })
 
 describe('demo boards', () => {
-  it('have the fixed readable ids, unique element ids, and belong to kestrel', () => {
-    expect(DEMO_BOARDS.map(b => b.id)).toEqual(['kestrel-915-antenna', 'kestrel-gateway-2g4', 'kestrel-868-lna'])
+  it('have the fixed readable ids, unique element ids, and belong to brackwater', () => {
+    expect(DEMO_BOARDS.map(b => b.id)).toEqual(['brackwater-915-antenna', 'brackwater-gateway-2g4', 'brackwater-868-lna'])
     const ids = DEMO_BOARDS.flatMap(b => b.elements.map(e => e.id))
     expect(new Set(ids).size).toBe(ids.length)
-    for (const b of DEMO_BOARDS) expect(b.workspace).toBe('kestrel')
+    for (const b of DEMO_BOARDS) expect(b.workspace).toBe('brackwater')
   })
 })

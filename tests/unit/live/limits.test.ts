@@ -10,7 +10,7 @@ import { createBoardDoc, encodeBoardState } from '../../../shared/board/ydoc'
 import { createLiveHub } from '../../../server/utils/live/rooms'
 import { connectClient, identity, memoryStore, startTestHub, synced, waitFor, type TestClient, type TestHub } from './harness'
 
-const BOARD = 'kestrel-915-antenna'
+const BOARD = 'brackwater-915-antenna'
 const demoState = () => encodeBoardState(createBoardDoc(DEMO_BOARDS.find(b => b.id === BOARD)!))
 const SYNC_STEP_1_EMPTY = new Uint8Array([0, 0, 1, 0]) // sync, step 1, an empty state vector
 

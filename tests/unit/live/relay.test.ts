@@ -10,7 +10,7 @@ import { readPresence } from '../../../shared/live/presence'
 import { decodeRelayMessage, encodeRelayMessage, type RelayBus } from '../../../server/utils/live/relay'
 import { connectClient, identity, memoryStore, startTestHub, synced, waitFor, type TestClient, type TestHub } from './harness'
 
-const BOARD = 'kestrel-915-antenna'
+const BOARD = 'brackwater-915-antenna'
 const demo = DEMO_BOARDS.find(b => b.id === BOARD)!
 const demoState = () => encodeBoardState(createBoardDoc(demo))
 const FAST = { saveDebounceMs: 100, saveMaxWaitMs: 400 }

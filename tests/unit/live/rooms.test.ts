@@ -8,7 +8,7 @@ import { addElement, updateElement } from '../../../shared/board/ops'
 import { readPresence } from '../../../shared/live/presence'
 import { connectClient, identity, memoryStore, startTestHub, synced, waitFor, type TestClient, type TestHub } from './harness'
 
-const BOARD = 'kestrel-915-antenna'
+const BOARD = 'brackwater-915-antenna'
 const demo = DEMO_BOARDS.find(b => b.id === BOARD)!
 const demoState = () => encodeBoardState(createBoardDoc(demo))
 const FAST = { saveDebounceMs: 100, saveMaxWaitMs: 400 }
@@ -142,7 +142,7 @@ describe('live rooms', () => {
 
     let release!: () => void
     store.holdLoads(new Promise<void>(ok => { release = ok }))
-    const chatty = await rawSocket(hub.url.replace('/live', '/live'), identity(2, 'designer'), 'kestrel-other')
+    const chatty = await rawSocket(hub.url.replace('/live', '/live'), identity(2, 'designer'), 'brackwater-other')
     for (let i = 0; i < 101; i++) chatty.ws.send(new Uint8Array([3]))
     expect(await chatty.closed).toBe(1008)
     release()

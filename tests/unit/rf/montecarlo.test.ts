@@ -22,7 +22,7 @@ function antennaInput(overrides: Partial<MonteCarloInput> = {}): MonteCarloInput
     ],
     spec: { minReturnLossDb: 10, f1Hz: 902e6, f2Hz: 928e6 },
     trials: 3000,
-    seed: 'kestrel-yield',
+    seed: 'brackwater-yield',
     ...overrides,
   }
 }

@@ -203,7 +203,7 @@ describe('Touchstone 1 details', () => {
 
 describe('Touchstone 2.0 (our own invented data)', () => {
   const twoPort = (order: string, extra = '') => [
-    '! Kestrel gateway 2.4 GHz module output, invented numbers',
+    '! Brackwater gateway 2.4 GHz module output, invented numbers',
     '[Version] 2.0',
     '# GHz S RI R 50',
     '[Number of Ports] 2',
@@ -276,7 +276,7 @@ describe('Touchstone 2.0 (our own invented data)', () => {
 })
 
 describe('writeTouchstone → parseTouchstone round trip (seeded)', () => {
-  const random = seedrandom('kestrel-touchstone-round-trip')
+  const random = seedrandom('brackwater-touchstone-round-trip')
   const formats: DataFormat[] = ['RI', 'MA', 'DB']
   const units: FrequencyUnit[] = ['HZ', 'KHZ', 'MHZ', 'GHZ']
 
@@ -298,7 +298,7 @@ describe('writeTouchstone → parseTouchstone round trip (seeded)', () => {
         for (const ports of [1, 2, 3, 5]) {
           const network = randomNetwork(ports, 7)
           const noise = ports === 2 ? [{ frequencyHz: network.frequencies[0]!, nfminDb: 0.7, gammaOpt: c(0.1, -0.3), rnNormalized: 0.2 }] : undefined
-          const text = writeTouchstone({ ...network, format, unit, comment: 'Kestrel soil node\nround trip', noise })
+          const text = writeTouchstone({ ...network, format, unit, comment: 'Brackwater soil node\nround trip', noise })
           expect(text.split('\n').find(line => line.startsWith('#'))).toBe(`# ${unit} S ${format} R ${network.z0}`)
           const back = parseTouchstone(text, `trip.s${ports}p`)
           expect([back.ports, back.format, back.frequencyUnit]).toEqual([ports, format, unit])

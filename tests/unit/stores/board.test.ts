@@ -15,8 +15,8 @@ function expectClose(actual: C, expected: C, tol = 1e-9) {
   expect(Math.hypot(actual.re - expected.re, actual.im - expected.im) / scale).toBeLessThan(tol)
 }
 
-const antenna = DEMO_BOARDS.find(b => b.id === 'kestrel-915-antenna')!
-const lna = DEMO_BOARDS.find(b => b.id === 'kestrel-868-lna')!
+const antenna = DEMO_BOARDS.find(b => b.id === 'brackwater-915-antenna')!
+const lna = DEMO_BOARDS.find(b => b.id === 'brackwater-868-lna')!
 
 let store: ReturnType<typeof useBoardStore>
 beforeEach(() => {
@@ -29,7 +29,7 @@ const docSnapshot = () => readBoard(useBoardDoc().doc!)
 describe('opening a board', () => {
   it('reads settings and elements from the document', () => {
     expect(store.isLoaded).toBe(true)
-    expect(store.boardId).toBe('kestrel-915-antenna')
+    expect(store.boardId).toBe('brackwater-915-antenna')
     expect(store.settings).toEqual(antenna.settings)
     expect(store.elements).toEqual(antenna.elements)
     expect(store.problems).toEqual([])

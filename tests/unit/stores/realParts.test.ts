@@ -5,7 +5,7 @@ import { useRealPartsStore } from '../../../stores/realParts'
 import { DEMO_BOARDS } from '../../../shared/board/demo-boards'
 import { elementStress, lossesAt, runMonteCarlo } from '../../../shared/rf/index'
 
-const antenna = DEMO_BOARDS.find(b => b.id === 'kestrel-915-antenna')!
+const antenna = DEMO_BOARDS.find(b => b.id === 'brackwater-915-antenna')!
 let board: ReturnType<typeof useBoardStore>
 let parts: ReturnType<typeof useRealPartsStore>
 
